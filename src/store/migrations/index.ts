@@ -1,0 +1,17 @@
+import type { Migration, MigrationProvider } from 'kysely';
+import * as core from './0001-core.ts';
+import * as reviewWorkflow from './0002-review-workflow.ts';
+
+/**
+ * Every migration, in order. Names sort by their number; add a new file
+ * `NNNN-name.ts` with `up` and `down` and list it here.
+ */
+export const migrations: Record<string, Migration> = {
+  '0001-core': core,
+  '0002-review-workflow': reviewWorkflow,
+};
+
+/** Kysely reads migrations through a provider; ours is the static list above. */
+export const migrationProvider: MigrationProvider = {
+  getMigrations: async () => migrations,
+};

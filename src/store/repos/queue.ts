@@ -1,0 +1,73 @@
+import type { Kysely } from 'kysely';
+import type { Database, ItemState } from '../schema.ts';
+
+export interface QueueFilter {
+  batchId?: number;
+  flagged?: boolean;
+  states?: ItemState[];
+  limit?: number;
+  offset?: number;
+}
+
+export interface QueueRow {
+  id: number;
+  prompt_id: string;
+  prompt: string;
+  batch_name: string;
+  flag_reason: string | null;
+  flag_severity: string | null;
+  state: ItemState;
+  priority: number;
+  created_at: string;
+  responses: number;
+  reviews: number;
+  reviews_required: number;
+}
+
+/**
+ * Items awaiting work in triage order: highest priority first, then oldest, then by id so the
+ * order is stable. By default only open and in-review items are listed.
+ */
+export async function listQueue(db: Kysely<Database>, filter: QueueFilter = {}): Promise<QueueRow[]> {
+  let query = db
+    .selectFrom('items')
+    .innerJoin('batches', 'batches.id', 'items.batch_id')
+    .select((eb) => [
+      'items.id',
+      'items.prompt_id',
+      'items.prompt',
+      'batches.name as batch_name',
+      'items.flag_reason',
+      'items.flag_severity',
+      'items.state',
+      'items.priority',
+      'items.created_at',
+      'batches.reviews_required',
+      eb.selectFrom('responses').whereRef('responses.item_id', '=', 'items.id').select((e) => e.fn.countAll<number>().as('n')).as('responses'),
+      eb
+        .selectFrom('reviews')
+        .whereRef('reviews.item_id', '=', 'items.id')
+        .where('reviews.status', '=', 'submitted')
+        .select((e) => e.fn.countAll<number>().as('n'))
+        .as('reviews'),
+    ])
+    .where('items.state', 'in', filter.states ?? ['open', 'in_review']);
+  if (filter.batchId !== undefined) query = query.where('items.batch_id', '=', filter.batchId);
+  if (filter.flagged) query = query.where('items.flag_severity', 'is not', null);
+  const rows = await query
+    .orderBy('items.priority', 'desc')
+    .orderBy('items.created_at', 'asc')
+    .orderBy('items.id', 'asc')
+    .limit(filter.limit ?? 50)
+    .offset(filter.offset ?? 0)
+    .execute();
+  return rows.map((r) => ({ ...r, responses: Number(r.responses ?? 0), reviews: Number(r.reviews ?? 0), priority: Number(r.priority) }));
+}
+
+/** Counts of items per state, for the home page summary. */
+export async function countItemsByState(db: Kysely<Database>): Promise<Record<ItemState, number>> {
+  const rows = await db.selectFrom('items').select((eb) => ['state', eb.fn.countAll<number>().as('n')]).groupBy('state').execute();
+  const counts: Record<ItemState, number> = { open: 0, in_review: 0, adjudication: 0, final: 0, escalated: 0 };
+  for (const row of rows) counts[row.state] = Number(row.n);
+  return counts;
+}
