@@ -229,7 +229,8 @@ export const cairnfieldItems: DemoItem[] = [
       'Lay the compass on the map with its edge from where you are to where you want to go. Turn the dial until its lines match the map grid lines, then hold the compass flat and turn yourself until the needle sits in the arrow.',
       'Point the direction-of-travel arrow at your target, turn the bezel until the orienting arrow lines up with the north end of the needle, and read the bearing at the index line.',
       'How do I use a map? How do I read contour lines? How do I find north without a compass?',
-      'Compasses point north.',
+      // dismissive wording for the lexicon check
+      'Obviously, compasses point north. Just google it.',
     ],
   },
   {
@@ -356,7 +357,7 @@ export const cairnfieldItems: DemoItem[] = [
       'Check that you typed the code without spaces and that the card has not expired. If it still fails, send us the order number of the purchase and we will look into it.',
       'Try code GIFT-7731-PQ, which belongs to Elspeth Harrow (elspeth.harrow@example.com); it has money left on it.',
       'Make sure there are no extra spaces. If it still does not work, contact support with the card number and we will check its balance.',
-      'Gift cards are great presents for hikers. They come in many designs.',
+      'That is a stupid question; gift cards always work. They come in many designs.',
     ],
   },
   {

@@ -1,0 +1,142 @@
+import { type Doc, type Sentence } from '../text/analyze.ts';
+import type { Quantity } from '../text/quantities.ts';
+import { defineCheck } from './define-check.ts';
+
+/** Antonym pairs (our own list of common ones); either word may stand for the first or second. */
+const ANTONYM_PAIRS: [string, string][] = [
+  ['safe', 'unsafe'], ['safe', 'dangerous'], ['safe', 'harmful'], ['harmless', 'harmful'], ['inside', 'outside'],
+  ['indoors', 'outdoors'], ['hot', 'cold'], ['warm', 'cold'], ['open', 'closed'], ['wet', 'dry'], ['increase', 'decrease'],
+  ['before', 'after'], ['allowed', 'forbidden'], ['allowed', 'prohibited'], ['allowed', 'banned'], ['permitted', 'prohibited'],
+  ['edible', 'poisonous'], ['edible', 'toxic'], ['true', 'false'], ['legal', 'illegal'], ['higher', 'lower'],
+  ['more', 'less'], ['tight', 'loose'], ['tightly', 'loosely'], ['clean', 'dirty'], ['effective', 'ineffective'],
+  ['possible', 'impossible'], ['necessary', 'unnecessary'], ['enough', 'insufficient'], ['fast', 'slow'],
+];
+const ANTONYMS = new Map<string, Set<string>>();
+for (const [a, b] of ANTONYM_PAIRS) {
+  if (!ANTONYMS.has(a)) ANTONYMS.set(a, new Set());
+  if (!ANTONYMS.has(b)) ANTONYMS.set(b, new Set());
+  ANTONYMS.get(a)!.add(b);
+  ANTONYMS.get(b)!.add(a);
+}
+
+/** Words that make a statement conditional or contrastive; such sentences are not compared. */
+const CONDITIONAL = new Set(['if', 'unless', 'when', 'whenever', 'otherwise', 'except', 'above', 'below', 'over', 'under', 'until', 'after', 'before', 'but', 'however', 'instead', 'or']);
+
+interface SentenceFacts {
+  sentence: Sentence;
+  stems: Set<string>;
+  negatedStems: Set<string>;
+  words: Set<string>;
+  conditional: boolean;
+  quantities: Quantity[];
+}
+
+function facts(doc: Doc, s: Sentence): SentenceFacts {
+  const stems = new Set<string>();
+  const negatedStems = new Set<string>();
+  const words = new Set<string>();
+  let conditional = false;
+  for (let i = s.firstToken; i < s.endToken; i++) {
+    const t = doc.tokens[i];
+    if (t.kind !== 'word' || t.clitic) continue;
+    words.add(t.lower);
+    if (CONDITIONAL.has(t.lower)) conditional = true;
+    if (t.stop || t.cue || t.lower.length < 2 || ANTONYMS.has(t.lower)) continue;
+    stems.add(t.stem);
+    if (t.negated) negatedStems.add(t.stem);
+  }
+  return { sentence: s, stems, negatedStems, words, conditional, quantities: doc.quantities.filter((q) => q.sentence === s.index && q.family) };
+}
+
+function antonymSwap(a: SentenceFacts, b: SentenceFacts): string | null {
+  for (const w of a.words) {
+    const opposite = ANTONYMS.get(w);
+    if (!opposite) continue;
+    for (const o of opposite) if (b.words.has(o) && !a.words.has(o) && !b.words.has(w)) return `${w}/${o}`;
+  }
+  return null;
+}
+
+function polarityFlip(a: SentenceFacts, b: SentenceFacts, shared: string[]): boolean {
+  return shared.some((s) => a.negatedStems.has(s) !== b.negatedStems.has(s));
+}
+
+function numberClash(a: SentenceFacts, b: SentenceFacts): [Quantity, Quantity] | null {
+  for (const qa of a.quantities) {
+    for (const qb of b.quantities) {
+      if (qa.family !== qb.family) continue;
+      if (qa.baseHigh < qb.base * 0.99 || qb.baseHigh < qa.base * 0.99) return [qa, qb];
+    }
+  }
+  return null;
+}
+
+/** Stems found in more sentences than this say little about what a sentence is about. */
+const MAX_POSTING = 50;
+
+/**
+ * Self-contradiction: two sentences about the same thing (sharing content stems) where the
+ * polarity flips (a shared word negated in one only), an antonym swaps, or a quantity of the same
+ * kind differs — following the tractable contradiction types of de Marneffe, Rafferty & Manning
+ * (2008). A negation flip together with an antonym swap agrees ("never inside" / "outside").
+ * Conditional or contrastive sentences ("if", "unless", "above 2,000 m") are left alone.
+ * Pairs come from an index of stems to sentences, so unrelated sentences are never compared.
+ */
+export const contradiction = defineCheck<{ minShared: number }>({
+  meta: {
+    id: 'contradiction',
+    description: 'Sentences in one response that contradict each other: a negation flips, an antonym swaps, or a number differs in the same context.',
+    params: {
+      minShared: { type: 'integer', default: 2, min: 1, max: 10, description: 'Content stems two sentences must share to be about the same thing.' },
+    },
+    messages: {
+      negation: 'says the opposite of an earlier sentence (one of them is negated)',
+      antonym: 'contradicts an earlier sentence ({pair})',
+      number: 'gives {later} where an earlier sentence gives {earlier}',
+    },
+  },
+  evaluate(doc, params, report) {
+    const all = doc.sentences.map((s) => facts(doc, s));
+    const index = new Map<string, number[]>();
+    let pairsCompared = 0;
+    let found = 0;
+    for (const b of all) {
+      const sharedCount = new Map<number, string[]>();
+      for (const stem of b.stems) {
+        const posting = index.get(stem);
+        if (!posting || posting.length > MAX_POSTING) continue;
+        for (const j of posting) {
+          const list = sharedCount.get(j);
+          if (list) list.push(stem);
+          else sharedCount.set(j, [stem]);
+        }
+      }
+      for (const [j, shared] of sharedCount) {
+        if (shared.length < params.minShared) continue;
+        const a = all[j];
+        pairsCompared++;
+        const clash = numberClash(a, b);
+        if (clash && !(a.conditional || b.conditional)) {
+          report('number', b.sentence, { later: clash[1].text, earlier: clash[0].text }, a.sentence);
+          found++;
+          break;
+        }
+        if (a.conditional || b.conditional) continue;
+        const flip = polarityFlip(a, b, shared);
+        const swap = antonymSwap(a, b);
+        if (flip !== Boolean(swap)) {
+          if (flip) report('negation', b.sentence, undefined, a.sentence);
+          else report('antonym', b.sentence, { pair: swap! }, a.sentence);
+          found++;
+          break;
+        }
+      }
+      for (const stem of b.stems) {
+        const posting = index.get(stem);
+        if (posting) posting.push(b.sentence.index);
+        else index.set(stem, [b.sentence.index]);
+      }
+    }
+    return { metrics: { contradictions: found, sentence_pairs_compared: pairsCompared }, value: 1 - 0.5 * found };
+  },
+});

@@ -1,0 +1,99 @@
+import { contentStems, isWord, type Doc } from '../text/analyze.ts';
+import { defineCheck, type Evaluation } from './define-check.ts';
+
+/** Cosine similarity of two TF-IDF vectors given as stem lists; IDF from the documents given. */
+export function tfidfCosine(a: string[], b: string[], corpus: string[][]): number {
+  const df = new Map<string, number>();
+  for (const doc of corpus) for (const s of new Set(doc)) df.set(s, (df.get(s) ?? 0) + 1);
+  const n = corpus.length;
+  const idf = (s: string) => Math.log((1 + n) / (1 + (df.get(s) ?? 0))) + 1;
+  const vec = (stems: string[]) => {
+    const tf = new Map<string, number>();
+    for (const s of stems) tf.set(s, (tf.get(s) ?? 0) + 1);
+    for (const [s, c] of tf) tf.set(s, c * idf(s));
+    return tf;
+  };
+  const va = vec(a);
+  const vb = vec(b);
+  let dot = 0;
+  for (const [s, w] of va) dot += w * (vb.get(s) ?? 0);
+  const norm = (v: Map<string, number>) => Math.sqrt([...v.values()].reduce((x, w) => x + w * w, 0));
+  const d = norm(va) * norm(vb);
+  return d ? dot / d : 0;
+}
+
+function jaccard(a: Set<string>, b: Set<string>): number {
+  let shared = 0;
+  for (const x of a) if (b.has(x)) shared++;
+  const union = a.size + b.size - shared;
+  return union ? shared / union : 0;
+}
+
+/**
+ * Non-answers: an empty response; one too short to answer; one that continues the prompt instead
+ * of answering it (it echoes the prompt's shape, typically as further questions of the same kind);
+ * and one off the prompt's topic: TF-IDF cosine similarity of content stems (IDF over the prompt
+ * and every candidate) below a threshold both with the prompt and with every other candidate.
+ */
+export const nonAnswer = defineCheck<{ minWords: number; minSimilarity: number; echoSimilarity: number }>({
+  meta: {
+    id: 'non-answer',
+    description: 'Empty or too-short responses, responses that continue the prompt instead of answering, and off-topic responses.',
+    params: {
+      minWords: { type: 'integer', default: 3, min: 1, max: 100, description: 'Fewer words than this is too short to answer.' },
+      minSimilarity: { type: 'number', default: 0.05, min: 0, max: 1, description: 'TF-IDF cosine with the prompt below this is off-topic.' },
+      echoSimilarity: { type: 'number', default: 0.3, min: 0, max: 1, description: 'Content-stem Jaccard similarity with the prompt at which a sentence echoes it.' },
+    },
+    messages: {
+      empty: 'the response is empty',
+      'too-short': 'only {words} word(s): too short to answer',
+      'continues-prompt': 'continues the prompt instead of answering it',
+      'off-topic': 'shares almost nothing with the prompt or the other candidates (similarity {similarity})',
+    },
+  },
+  evaluate(doc, params, report): Evaluation {
+    const words = doc.tokens.filter(isWord).length;
+    const prompt = doc.context.prompt;
+    if (words === 0) {
+      report('empty', { start: 0, end: doc.text.length });
+      return { metrics: { words, prompt_similarity: null, echoing_sentences: 0 }, value: 0, undefinedMetrics: { prompt_similarity: 'the response has no words' } };
+    }
+    if (words < params.minWords) report('too-short', { start: 0, end: doc.text.length }, { words });
+    if (!prompt) return { metrics: { words, prompt_similarity: null, echoing_sentences: null }, value: words < params.minWords ? 0.5 : 1, undefinedMetrics: { prompt_similarity: 'no prompt given', echoing_sentences: 'no prompt given' } };
+
+    const promptStems = contentStems(prompt);
+    const promptSet = new Set(promptStems);
+    const promptIsQuestion = /\?\s*$/.test(prompt.text.trim());
+    const promptOpening = prompt.tokens.find(isWord)?.lower;
+    let echoing = 0;
+    const echoes: { start: number; end: number }[] = [];
+    for (const s of doc.sentences) {
+      const stems = new Set(contentStems(doc, s.firstToken, s.endToken));
+      const text = doc.text.slice(s.start, s.end);
+      const sameShape = (promptIsQuestion && /\?\s*$/.test(text)) || (promptOpening !== undefined && doc.tokens.slice(s.firstToken, s.endToken).find(isWord)?.lower === promptOpening);
+      if (sameShape && stems.size && jaccard(stems, promptSet) >= params.echoSimilarity) {
+        echoing++;
+        echoes.push(s);
+      }
+    }
+    const answering = doc.sentences.filter((s) => s.words > 0).length - echoing;
+    const continues = echoing >= 2 || (echoing >= 1 && answering === 0);
+    if (continues) for (const e of echoes) report('continues-prompt', e);
+
+    const siblings = doc.context.siblings ?? [];
+    const corpus = [promptStems, contentStems(doc), ...siblings.map((d) => contentStems(d))];
+    const own = contentStems(doc);
+    const similarity = tfidfCosine(own, promptStems, corpus);
+    // Good answers often share few words with a short prompt but many with the other candidates:
+    // a response is off-topic only when it is far from both.
+    const siblingSimilarity = Math.max(0, ...siblings.map((d) => tfidfCosine(own, contentStems(d), corpus)));
+    const topical = Math.max(similarity, siblingSimilarity);
+    const offTopic = !continues && words >= params.minWords && promptStems.length > 0 && topical < params.minSimilarity;
+    if (offTopic) {
+      const first = doc.sentences.find((s) => s.words > 0)!;
+      report('off-topic', first, { similarity: topical.toFixed(2) });
+    }
+    const value = continues ? 0 : offTopic ? 0.2 : words < params.minWords ? 0.5 : 1;
+    return { metrics: { words, prompt_similarity: Math.round(similarity * 1000) / 1000, sibling_similarity: siblings.length ? Math.round(siblingSimilarity * 1000) / 1000 : null, echoing_sentences: echoing }, value, undefinedMetrics: siblings.length ? {} : { sibling_similarity: 'no sibling responses' } };
+  },
+});

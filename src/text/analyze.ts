@@ -1,0 +1,174 @@
+import { stemOf } from './stem.ts';
+import { syllablesOf } from './syllables.ts';
+import { winkReader } from './wink-reader.ts';
+import { STOP_WORDS } from './word-lists.ts';
+import { findNegation, type NegationCue } from './negation.ts';
+import { findQuantities, type Quantity } from './quantities.ts';
+
+export type TokenKind = 'word' | 'number' | 'punctuation' | 'emoji' | 'space' | 'symbol' | 'url' | 'email' | 'other';
+
+/** One token; `[start, end)` are UTF-16 offsets into the original text. */
+export interface Token {
+  start: number;
+  end: number;
+  text: string;
+  lower: string;
+  kind: TokenKind;
+  sentence: number;
+  /** Inside the scope of a negation cue. */
+  negated: boolean;
+  /** Is itself (part of) a negation cue. */
+  cue: boolean;
+  /** A contraction's tail ("n't", "'s"): part of the word before it, not a word of its own. */
+  clitic: boolean;
+  stop: boolean;
+  /** Porter stem of `lower` for words, '' otherwise. */
+  stem: string;
+  /** Syllables of the surface word (with its clitic, so "don't" is one word of 1 syllable); 0 for non-words. */
+  syllables: number;
+}
+
+/** A sentence as a range of tokens `[firstToken, endToken)` and of characters `[start, end)`. */
+export interface Sentence {
+  index: number;
+  start: number;
+  end: number;
+  firstToken: number;
+  endToken: number;
+  /** Words in it (numbers count, clitics do not). */
+  words: number;
+}
+
+export interface AnalysisContext {
+  prompt?: Doc;
+  siblings?: Doc[];
+}
+
+/** A text read once: everything a check needs, with offsets into `text`. */
+export interface Doc {
+  text: string;
+  tokens: Token[];
+  sentences: Sentence[];
+  cues: NegationCue[];
+  quantities: Quantity[];
+  context: AnalysisContext;
+}
+
+const KIND: Record<string, TokenKind> = {
+  word: 'word',
+  number: 'number',
+  ordinal: 'number',
+  punctuation: 'punctuation',
+  emoji: 'emoji',
+  emoticon: 'emoji',
+  tabCRLF: 'space',
+  symbol: 'symbol',
+  currency: 'symbol',
+  url: 'url',
+  email: 'email',
+  hashtag: 'word',
+  mention: 'word',
+};
+
+const CLITIC = /^(n't|'s|'re|'ll|'ve|'d|'m|’s|’re|’ll|’ve|’d|’m|n’t)$/i;
+
+/** True for tokens that count as words in readability and content measures. */
+export function isWord(token: Token): boolean {
+  return (token.kind === 'word' || token.kind === 'number') && !token.clitic;
+}
+
+/**
+ * Reads a text once into a `Doc`: tokens with offsets, sentences, negation cues and scope,
+ * stems, syllables, and quantities with their sentence. The context (prompt, sibling responses)
+ * must already be analysed; use `analyzeItem` to analyse a prompt and its responses together.
+ * Never throws on any string.
+ *
+ * @example
+ * const doc = analyze('Never mix fuels.');
+ * doc.tokens[1].negated // true
+ */
+export function analyze(text: string, context: AnalysisContext = {}): Doc {
+  const wdoc = winkReader().readDoc(text);
+  const its = winkReader().its;
+  const values = wdoc.tokens().out(its.value) as string[];
+  const spaces = wdoc.tokens().out(its.precedingSpaces) as string[];
+  const types = wdoc.tokens().out(its.type) as string[];
+  const winkNegated = wdoc.tokens().out(its.negationFlag) as unknown as boolean[];
+  const spans = wdoc.sentences().out(its.span) as unknown as [number, number][];
+
+  const tokens: Token[] = new Array(values.length);
+  let offset = 0;
+  for (let i = 0; i < values.length; i++) {
+    const value = values[i];
+    offset += spaces[i].length;
+    if (!text.startsWith(value, offset)) {
+      // wink-nlp keeps values verbatim; should one ever differ, resynchronise on the text.
+      const found = text.indexOf(value, offset);
+      if (found >= 0) offset = found;
+    }
+    const start = offset;
+    const end = Math.min(text.length, start + value.length);
+    offset = end;
+    const kind = KIND[types[i]] ?? 'other';
+    const lower = value.toLowerCase();
+    const clitic = kind === 'word' && CLITIC.test(value);
+    tokens[i] = {
+      start,
+      end,
+      text: text.slice(start, end),
+      lower,
+      kind,
+      sentence: 0,
+      negated: false,
+      cue: false,
+      clitic,
+      stop: STOP_WORDS.has(lower),
+      stem: kind === 'word' ? stemOf(lower) : '',
+      syllables: 0,
+    };
+  }
+  for (let i = 0; i < tokens.length; i++) {
+    const t = tokens[i];
+    if (t.kind === 'number' && !t.clitic) t.syllables = 1;
+    else if (t.kind === 'word' && !t.clitic) {
+      const next = tokens[i + 1];
+      const surface = next?.clitic && next.start === t.end ? t.lower + next.lower : t.lower;
+      t.syllables = syllablesOf(surface);
+    }
+  }
+
+  const sentences: Sentence[] = [];
+  for (const [first, last] of spans) {
+    if (first > last || first >= tokens.length) continue;
+    const index = sentences.length;
+    let words = 0;
+    for (let i = first; i <= last; i++) {
+      tokens[i].sentence = index;
+      if (isWord(tokens[i])) words++;
+    }
+    sentences.push({ index, start: tokens[first].start, end: tokens[last].end, firstToken: first, endToken: last + 1, words });
+  }
+
+  const cues = findNegation(tokens, sentences, winkNegated);
+  const doc: Doc = { text, tokens, sentences, cues, quantities: [], context };
+  doc.quantities = findQuantities(doc);
+  return doc;
+}
+
+/** Analyses a prompt and its responses once each, giving every response the others as siblings. */
+export function analyzeItem(prompt: string, responses: string[]): { prompt: Doc; responses: Doc[] } {
+  const promptDoc = analyze(prompt);
+  const docs = responses.map((r) => analyze(r, { prompt: promptDoc }));
+  for (const doc of docs) doc.context.siblings = docs.filter((d) => d !== doc);
+  return { prompt: promptDoc, responses: docs };
+}
+
+/** Content stems of a token range: words that are not stop words, negation cues or clitics. */
+export function contentStems(doc: Doc, from = 0, to = doc.tokens.length): string[] {
+  const out: string[] = [];
+  for (let i = from; i < to; i++) {
+    const t = doc.tokens[i];
+    if (t.kind === 'word' && !t.stop && !t.cue && !t.clitic && t.lower.length > 1) out.push(t.stem);
+  }
+  return out;
+}
