@@ -27,7 +27,7 @@ export const CAUTION_DOMAIN_TERMS = [
   'safe*', 'health*', 'medic*', 'doctor', 'drink*', 'eat*', 'edible', 'poison*', 'injur*', 'pain', 'allerg*', 'dose', 'pregnan*',
   'child*', 'toddler*', 'baby', 'legal*', 'law*', 'allowed', 'airline*', 'money', 'invest*', 'loan*', 'tax*', 'fire', 'stove*',
   'gas', 'carbon monoxide', 'altitude', 'hypothermia', 'storm', 'lightning', 'water', 'snow', 'mushroom*', 'sting*', 'moose',
-  'wildlife', 'repellent', 'blister*', 'ankle', 'boil*',
+  'wildlife', 'repellent', 'blister*', 'ankle', 'boil*', 'cook*', 'indoor*', 'tent*',
 ];
 
 const URL = /\bhttps?:\/\/[^\s<>"')\]]+/gi;

@@ -8,7 +8,7 @@ const ANTONYM_PAIRS: [string, string][] = [
   ['indoors', 'outdoors'], ['hot', 'cold'], ['warm', 'cold'], ['open', 'closed'], ['wet', 'dry'], ['increase', 'decrease'],
   ['before', 'after'], ['allowed', 'forbidden'], ['allowed', 'prohibited'], ['allowed', 'banned'], ['permitted', 'prohibited'],
   ['edible', 'poisonous'], ['edible', 'toxic'], ['true', 'false'], ['legal', 'illegal'], ['higher', 'lower'],
-  ['more', 'less'], ['tight', 'loose'], ['tightly', 'loosely'], ['clean', 'dirty'], ['effective', 'ineffective'],
+  ['more', 'less'], ['high', 'low'], ['summer', 'winter'], ['day', 'night'], ['full', 'empty'], ['adult', 'child'], ['adults', 'children'], ['tight', 'loose'], ['tightly', 'loosely'], ['clean', 'dirty'], ['effective', 'ineffective'],
   ['possible', 'impossible'], ['necessary', 'unnecessary'], ['enough', 'insufficient'], ['fast', 'slow'],
 ];
 const ANTONYMS = new Map<string, Set<string>>();
@@ -115,15 +115,17 @@ export const contradiction = defineCheck<{ minShared: number }>({
         if (shared.length < params.minShared) continue;
         const a = all[j];
         pairsCompared++;
+        if (a.conditional || b.conditional) continue;
+        const swap = antonymSwap(a, b);
         const clash = numberClash(a, b);
-        if (clash && !(a.conditional || b.conditional)) {
+        // different numbers under opposite conditions ("4 hours on high", "40 hours on low") agree
+        if (swap && clash) continue;
+        if (clash) {
           report('number', b.sentence, { later: clash[1].text, earlier: clash[0].text }, a.sentence);
           found++;
           break;
         }
-        if (a.conditional || b.conditional) continue;
         const flip = polarityFlip(a, b, shared);
-        const swap = antonymSwap(a, b);
         if (flip !== Boolean(swap)) {
           if (flip) report('negation', b.sentence, undefined, a.sentence);
           else report('antonym', b.sentence, { pair: swap! }, a.sentence);

@@ -35,7 +35,7 @@ export function mask(text: string, keepEnd = 4): string {
   return `${'•'.repeat(Math.max(0, text.length - keepEnd))}${visible}`;
 }
 
-const PHONE_WORDS = /(phone|call|tel|mobile|cell|whatsapp|reachable|reach (?:him|her|them|me) at|contact|number|fax)\W{0,20}$/i;
+const PHONE_WORDS = /\b(phone|call|ring|tel|mobile|cell|whatsapp|reachable|reach|contact|number|fax)\b(?:\s+(?:me|us|him|her|them))?(?:\s+(?:at|on|is))?\W{0,5}$/i;
 const ID_PREFIX = /([A-Za-z]{1,4}[-#]|order\s*|ref(?:erence)?\s*|invoice\s*|no\.\s*|#)$/i;
 const DATE_SHAPE = /^(\d{4}[-./]\d{1,2}[-./]\d{1,2}|\d{1,2}[-./]\d{1,2}[-./]\d{2,4})$/;
 

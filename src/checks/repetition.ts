@@ -115,7 +115,8 @@ export const repetition = defineCheck<Params>({
       shares[t.n] = t.share;
       if (t.share === null) undefinedMetrics[`top_${t.n}gram_share`] = `fewer than ${t.n} words`;
     }
-    const exceeded = tops.filter((t) => t.share !== null && t.positions.length > 1 && t.share > limits[t.n]);
+    // two occurrences in a short text are ordinary; Rae et al.'s limits were set for documents
+    const exceeded = tops.filter((t) => t.share !== null && t.positions.length >= 3 && t.share > limits[t.n]);
     const worst = exceeded.at(-1);
     if (worst) {
       for (const p of worst.positions.slice(1, 21)) {

@@ -15,7 +15,7 @@ export interface CaveatTopic {
 export const DEFAULT_TOPICS: CaveatTopic[] = [
   {
     id: 'fumes',
-    promptTerms: ['stove*', 'heater*', 'burner*', 'generator*', 'charcoal', 'carbon monoxide', 'fumes'],
+    promptTerms: ['stove*', 'heater*', 'burner*', 'generator*', 'charcoal', 'carbon monoxide', 'fumes', 'cook*', 'grill*', 'barbecue*'],
     promptContext: ['inside', 'indoor*', 'tent*', 'vestibule*', 'closed', 'enclosed', 'garage*', 'cabin*', 'car', 'van'],
     caveatTerms: ['ventilat*', 'fresh air', 'carbon monoxide', 'open the door*', 'doors open', 'doors wide open', 'outside', 'outdoors', 'never cook inside'],
   },

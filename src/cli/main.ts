@@ -1,11 +1,12 @@
 import { UsageError, UserError } from '../errors.ts';
 import { parseArgs } from './args.ts';
 import type { Command, CommandIo } from './command.ts';
+import { analyzeCommand } from './commands/analyze.ts';
 import { dbStatusCommand } from './commands/db-status.ts';
 import { serveCommand } from './commands/serve.ts';
 
 /** Every command, in the order `plumbline --help` lists them. */
-export const COMMANDS: Command[] = [serveCommand, dbStatusCommand];
+export const COMMANDS: Command[] = [serveCommand, dbStatusCommand, analyzeCommand];
 
 export function helpText(): string {
   const width = Math.max(...COMMANDS.map((c) => c.name.length));

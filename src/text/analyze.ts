@@ -88,7 +88,8 @@ export function isWord(token: Token): boolean {
  * doc.tokens[1].negated // true
  */
 export function analyze(text: string, context: AnalysisContext = {}): Doc {
-  const wdoc = winkReader().readDoc(text);
+  const { read, runs } = shieldLongRuns(text);
+  const wdoc = winkReader().readDoc(read);
   const its = winkReader().its;
   const values = wdoc.tokens().out(its.value) as string[];
   const spaces = wdoc.tokens().out(its.precedingSpaces) as string[];
@@ -98,20 +99,30 @@ export function analyze(text: string, context: AnalysisContext = {}): Doc {
 
   const tokens: Token[] = new Array(values.length);
   let offset = 0;
+  let shift = 0; // original length minus read length of the long runs passed so far
+  let nextRun = 0;
   for (let i = 0; i < values.length; i++) {
     const value = values[i];
     offset += spaces[i].length;
-    if (!text.startsWith(value, offset)) {
+    if (!read.startsWith(value, offset)) {
       // wink-nlp keeps values verbatim; should one ever differ, resynchronise on the text.
-      const found = text.indexOf(value, offset);
+      const found = read.indexOf(value, offset);
       if (found >= 0) offset = found;
     }
-    const start = offset;
-    const end = Math.min(text.length, start + value.length);
-    offset = end;
-    const kind = KIND[types[i]] ?? 'other';
-    const lower = value.toLowerCase();
-    const clitic = kind === 'word' && CLITIC.test(value);
+    let start = offset + shift;
+    let end = Math.min(text.length, start + value.length);
+    let kind = KIND[types[i]] ?? 'other';
+    const run = runs[nextRun];
+    if (run && offset === run.at) {
+      start = run.start;
+      end = run.end;
+      shift += run.end - run.start - 1;
+      kind = /^[\p{L}\p{M}'’-]+$/u.test(text.slice(start, Math.min(end, start + 1000))) ? 'word' : 'other';
+      nextRun++;
+    }
+    offset += value.length;
+    const lower = text.slice(start, end).toLowerCase();
+    const clitic = kind === 'word' && CLITIC.test(lower);
     tokens[i] = {
       start,
       end,
@@ -138,11 +149,16 @@ export function analyze(text: string, context: AnalysisContext = {}): Doc {
   }
 
   const sentences: Sentence[] = [];
-  for (const [first, last] of spans) {
-    if (first > last || first >= tokens.length) continue;
+  for (const [spanFirst, spanLast] of spans) {
+    if (spanFirst > spanLast || spanFirst >= tokens.length) continue;
+    // a sentence's character range leaves out line breaks and tabs at its edges
+    let first = spanFirst;
+    let last = Math.min(spanLast, tokens.length - 1);
+    while (first < last && tokens[first].kind === 'space') first++;
+    while (last > first && tokens[last].kind === 'space') last--;
     const index = sentences.length;
     let words = 0;
-    for (let i = first; i <= last; i++) {
+    for (let i = spanFirst; i <= Math.min(spanLast, tokens.length - 1); i++) {
       tokens[i].sentence = index;
       if (isWord(tokens[i])) words++;
     }
@@ -153,6 +169,27 @@ export function analyze(text: string, context: AnalysisContext = {}): Doc {
   const doc: Doc = { text, tokens, sentences, cues, quantities: [], context };
   doc.quantities = findQuantities(doc);
   return doc;
+}
+
+/** Runs of non-space characters at least this long are read as one token (see shieldLongRuns). */
+const LONG_RUN = 200;
+
+/**
+ * wink-nlp's tokenizer takes time quadratic in a token's length, so a 1 MB "word" would take
+ * minutes. Each run of LONG_RUN or more non-space characters is replaced by one letter before
+ * wink reads the text; `runs` records where each was (in the read text) and what it spanned.
+ */
+function shieldLongRuns(text: string): { read: string; runs: { at: number; start: number; end: number }[] } {
+  const runs: { at: number; start: number; end: number }[] = [];
+  let read = '';
+  let last = 0;
+  for (const m of text.matchAll(new RegExp(`\\S{${LONG_RUN},}`, 'g'))) {
+    read += text.slice(last, m.index);
+    runs.push({ at: read.length, start: m.index!, end: m.index! + m[0].length });
+    read += 'x';
+    last = m.index! + m[0].length;
+  }
+  return runs.length ? { read: read + text.slice(last), runs } : { read: text, runs };
 }
 
 /** Analyses a prompt and its responses once each, giving every response the others as siblings. */
