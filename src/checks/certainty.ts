@@ -69,12 +69,12 @@ export const certainty = defineCheck<Params>({
   },
   evaluate(doc, params, report) {
     const text = doc.text;
-    const cautious = findPhrases(text, params.cautionTerms).length > 0 || (doc.context.prompt ? findPhrases(doc.context.prompt.text, params.cautionTerms).length > 0 : false);
-    const hedgeSpans = findPhrases(text, params.hedges);
+    const cautious = findPhrases(doc, params.cautionTerms).length > 0 || (doc.context.prompt ? findPhrases(doc.context.prompt, params.cautionTerms).length > 0 : false);
+    const hedgeSpans = findPhrases(doc, params.hedges);
     const hedgesIn = (span: { start: number; end: number }) => hedgeSpans.filter((h) => h.start >= span.start && h.end <= span.end).length;
     let count = 0;
     if (cautious) {
-      for (const a of findPhrases(text, params.absolutes)) {
+      for (const a of findPhrases(doc, params.absolutes)) {
         if (hedgesIn(sentenceSpanAt(doc, a.start)) > 0) continue;
         report('absolute', a, { phrase: text.slice(a.start, a.end) });
         count++;
@@ -89,7 +89,7 @@ export const certainty = defineCheck<Params>({
     }
     const links = [...text.matchAll(URL)].map((m) => ({ start: m.index!, end: m.index! + m[0].replace(/[.,;:!?]+$/, '').length }));
     const dois = [...text.matchAll(DOI)].map((m) => ({ start: m.index!, end: m.index! + m[0].replace(/[.,;:!?)]+$/, '').length }));
-    for (const u of findPhrases(text, params.unsourced)) {
+    for (const u of findPhrases(doc, params.unsourced)) {
       const sentence = sentenceSpanAt(doc, u.start);
       const sourced = [...links, ...dois].some((l) => l.start >= sentence.start && l.start < sentence.end);
       if (!sourced) {

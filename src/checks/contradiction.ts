@@ -31,7 +31,7 @@ interface SentenceFacts {
   quantities: Quantity[];
 }
 
-function facts(doc: Doc, s: Sentence): SentenceFacts {
+function facts(doc: Doc, s: Sentence, quantities: Quantity[]): SentenceFacts {
   const stems = new Set<string>();
   const negatedStems = new Set<string>();
   const words = new Set<string>();
@@ -45,7 +45,7 @@ function facts(doc: Doc, s: Sentence): SentenceFacts {
     stems.add(t.stem);
     if (t.negated) negatedStems.add(t.stem);
   }
-  return { sentence: s, stems, negatedStems, words, conditional, quantities: doc.quantities.filter((q) => q.sentence === s.index && q.family) };
+  return { sentence: s, stems, negatedStems, words, conditional, quantities };
 }
 
 function antonymSwap(a: SentenceFacts, b: SentenceFacts): string | null {
@@ -96,7 +96,14 @@ export const contradiction = defineCheck<{ minShared: number }>({
     },
   },
   evaluate(doc, params, report) {
-    const all = doc.sentences.map((s) => facts(doc, s));
+    const bySentence = new Map<number, Quantity[]>();
+    for (const q of doc.quantities) {
+      if (!q.family) continue;
+      const list = bySentence.get(q.sentence);
+      if (list) list.push(q);
+      else bySentence.set(q.sentence, [q]);
+    }
+    const all = doc.sentences.map((s) => facts(doc, s, bySentence.get(s.index) ?? []));
     const index = new Map<string, number[]>();
     let pairsCompared = 0;
     let found = 0;

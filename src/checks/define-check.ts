@@ -81,12 +81,13 @@ export interface Check<P = Record<string, unknown>> {
  */
 export function defineCheck<P>(definition: CheckDefinition<P>): Check<P> {
   const { meta } = definition;
-  const defaults = () => Object.fromEntries(Object.entries(meta.params).map(([k, spec]) => [k, structuredClone(spec.default)])) as P;
+  // Built once and shared: parameters are read-only, and phrase lists are compiled per list object.
+  const defaultParams = Object.freeze(Object.fromEntries(Object.entries(meta.params).map(([k, spec]) => [k, spec.default]))) as P;
   return {
     meta,
-    defaults,
+    defaults: () => defaultParams,
     run(doc, params) {
-      const resolved = { ...defaults(), ...(params ?? {}) } as P;
+      const resolved = params ? ({ ...defaultParams, ...params } as P) : defaultParams;
       const findings: Finding[] = [];
       const report: Report = (message, span, data, related) => {
         const template = meta.messages[message];

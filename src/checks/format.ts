@@ -34,7 +34,7 @@ export const format = defineCheck<{ minChars: number; maxChars: number }>({
     const text = doc.text;
     const trimmedEnd = text.trimEnd().length;
     let problems = 0;
-    const words = doc.tokens.filter(isWord);
+    const words = doc.wordTokens;
     const lastLine = text.slice(0, trimmedEnd).split(/\r?\n/).at(-1) ?? '';
     const inList = /^\s*([-*•]|\d+[.)])\s/.test(lastLine);
     const last = words.at(-1);
@@ -63,9 +63,9 @@ export const format = defineCheck<{ minChars: number; maxChars: number }>({
     }
     const inCode = (i: number) => code.some((c) => i >= c.start && i < c.end);
     const stack: { ch: string; at: number }[] = [];
-    for (let i = 0; i < text.length; i++) {
-      const ch = text[i];
-      if (!(ch in OPENERS) && !(ch in CLOSERS)) continue;
+    for (const m of text.matchAll(/[()[\]{}]/g)) {
+      const i = m.index!;
+      const ch = m[0];
       if (inCode(i)) continue;
       if (ch in OPENERS) stack.push({ ch, at: i });
       else if (stack.at(-1)?.ch === CLOSERS[ch]) stack.pop();

@@ -63,12 +63,14 @@ export const lexicon = defineCheck<{ terms: LexiconTerm[] }>({
   },
   evaluate(doc, params, report) {
     const index = compile(params.terms);
-    const words = doc.tokens.filter(isWord);
+    const words = doc.wordTokens;
     let matches = 0;
     for (let i = 0; i < words.length; i++) {
       const w = words[i];
-      const candidates = [...(index.get(w.lower) ?? []), ...(w.stem && w.stem !== w.lower ? index.get(w.stem) ?? [] : [])];
-      for (const term of candidates) {
+      const byWord = index.get(w.lower);
+      const byStem = w.stem && w.stem !== w.lower ? index.get(w.stem) : undefined;
+      if (!byWord && !byStem) continue;
+      for (const term of byStem ? [...(byWord ?? []), ...byStem] : byWord!) {
         const n = term.words.length;
         if (i + n > words.length) continue;
         let ok = true;

@@ -52,7 +52,7 @@ export const nonAnswer = defineCheck<{ minWords: number; minSimilarity: number; 
     },
   },
   evaluate(doc, params, report): Evaluation {
-    const words = doc.tokens.filter(isWord).length;
+    const words = doc.wordTokens.length;
     const prompt = doc.context.prompt;
     if (words === 0) {
       report('empty', { start: 0, end: doc.text.length });

@@ -27,8 +27,8 @@ export const PARTIAL_MARKERS = ['but i can', 'however, i can', 'however i can', 
 
 /** Refusal phrases in the text, less those inside a look-alike that is no refusal. */
 export function refusalSpans(doc: Doc, phrases: readonly string[] = REFUSAL_PHRASES, notRefusals: readonly string[] = NOT_REFUSALS): Span[] {
-  const excluded = findPhrases(doc.text, notRefusals);
-  return findPhrases(doc.text, phrases).filter((r) => !excluded.some((x) => x.start <= r.start && r.start < x.end));
+  const excluded = findPhrases(doc, notRefusals);
+  return findPhrases(doc, phrases).filter((r) => !excluded.some((x) => x.start <= r.start && r.start < x.end));
 }
 
 /** True when the response opens with a refusal (within its first sentence). */

@@ -45,7 +45,7 @@ export const refusal = defineCheck<Params>({
   },
   evaluate(doc, params, report): Evaluation {
     const refusals = refusalSpans(doc, params.phrases, params.notRefusals);
-    const redirects = findPhrases(doc.text, params.redirects);
+    const redirects = findPhrases(doc, params.redirects);
     const firstSentence = doc.sentences.find((s) => s.words > 0);
     const declining = new Set<number>();
     for (const r of refusals) {
@@ -62,11 +62,11 @@ export const refusal = defineCheck<Params>({
       if (declining.has(s.index)) continue;
       for (let i = s.firstToken; i < s.endToken; i++) if (isWord(doc.tokens[i])) substantive++;
     }
-    const offers = findPhrases(doc.text, params.partialMarkers).length > 0;
+    const offers = findPhrases(doc, params.partialMarkers).length > 0;
     const refused = refusals.length > 0 || (redirects.length > 0 && substantive < params.minSubstantiveWords);
     const kind = !refused ? 'none' : offers || substantive >= params.minSubstantiveWords ? 'partial' : 'full';
     const prompt = doc.context.prompt;
-    const risky = prompt ? findPhrases(prompt.text, params.riskTerms).length > 0 : null;
+    const risky = prompt ? findPhrases(prompt, params.riskTerms).length > 0 : null;
     if (kind !== 'none' && risky === false) {
       const first = refusals[0] ?? redirects[0];
       const token = doc.tokens.find((t) => t.end > first.start);

@@ -1,5 +1,5 @@
 import { deflateRawSync } from 'node:zlib';
-import { isWord, type Doc, type Token } from '../text/analyze.ts';
+import type { Token } from '../text/analyze.ts';
 import { defineCheck } from './define-check.ts';
 
 interface Params {
@@ -12,31 +12,56 @@ interface Params {
   topShare4: number;
 }
 
-function words(doc: Doc): Token[] {
-  return doc.tokens.filter(isWord);
-}
-
-function ngramKeys(ws: Token[], n: number): string[] {
-  const keys: string[] = [];
-  for (let i = 0; i + n <= ws.length; i++) {
-    let key = ws[i].lower;
-    for (let k = 1; k < n; k++) key += ` ${ws[i + k].lower}`;
-    keys.push(key);
+/**
+ * Dense ids for the n-grams of a text, for n = 1 … maxN: `levels[n][i]` is the id of the n-gram
+ * starting at word i, equal n-grams get equal ids, and `distinct[n]` counts them. Each level is
+ * built from the one before (id of the (n−1)-gram, next word), so keys stay small integers.
+ */
+function ngramIds(ws: Token[], maxN: number): { levels: Int32Array[]; distinct: number[] } {
+  const words = new Map<string, number>();
+  const first = new Int32Array(ws.length);
+  ws.forEach((w, i) => {
+    let id = words.get(w.lower);
+    if (id === undefined) words.set(w.lower, (id = words.size));
+    first[i] = id;
+  });
+  const levels = [new Int32Array(0), first];
+  const distinct = [0, words.size];
+  const vocabulary = Math.max(1, words.size);
+  for (let n = 2; n <= maxN; n++) {
+    const previous = levels[n - 1];
+    const count = Math.max(0, ws.length - n + 1);
+    const ids = new Int32Array(count);
+    const dense = new Map<number, number>();
+    for (let i = 0; i < count; i++) {
+      const key = previous[i] * vocabulary + first[i + n - 1];
+      let id = dense.get(key);
+      if (id === undefined) dense.set(key, (id = dense.size));
+      ids[i] = id;
+    }
+    levels.push(ids);
+    distinct.push(dense.size);
   }
-  return keys;
+  return { levels, distinct };
 }
 
-/** 1 − unique/total of the keys; null for no keys. */
-function repeatShare(keys: string[]): number | null {
-  return keys.length ? 1 - new Set(keys).size / keys.length : null;
+/** The most frequent id, where it occurs, and the share of word characters its occurrences cover (Rae et al. 2021). */
+function mostFrequent(ids: Int32Array, distinct: number, ws: Token[], n: number, wordChars: number): { positions: number[]; share: number | null } {
+  if (!ids.length || !wordChars) return { positions: [], share: null };
+  const counts = new Int32Array(distinct);
+  let best = ids[0];
+  for (const id of ids) if (++counts[id] > counts[best]) best = id;
+  if (counts[best] < 2) return { positions: [], share: 0 };
+  const positions: number[] = [];
+  ids.forEach((id, i) => {
+    if (id === best) positions.push(i);
+  });
+  let chars = 0;
+  for (let k = 0; k < n; k++) chars += ws[positions[0] + k].text.length;
+  return { positions, share: Math.min(1, (positions.length * chars) / wordChars) };
 }
 
-function shingles(ws: Token[]): Set<string> {
-  if (ws.length < 3) return new Set([ws.map((w) => w.lower).join(' ')]);
-  return new Set(ngramKeys(ws, 3));
-}
-
-/** How many earlier sentences sharing a shingle are compared with each sentence at most. */
+/** How many of the latest earlier sentences holding a shingle are compared through it. */
 const MAX_CANDIDATES = 50;
 
 /**
@@ -67,30 +92,45 @@ export const repetition = defineCheck<Params>({
     },
   },
   evaluate(doc, params, report) {
-    const ws = words(doc);
+    const ws = doc.wordTokens;
+    const { levels, distinct } = ngramIds(ws, Math.max(4, params.n));
+    const share = (n: number) => (levels[n].length ? 1 - distinct[n] / levels[n].length : null);
     const undefinedMetrics: Record<string, string> = {};
-    const seqRep = repeatShare(ngramKeys(ws, params.n));
+    const seqRep = share(params.n);
     if (seqRep === null) undefinedMetrics.seq_rep_n = `fewer than ${params.n} words`;
-    const distinct1 = ws.length ? new Set(ws.map((w) => w.lower)).size / ws.length : null;
-    const bigrams = ngramKeys(ws, 2);
-    const distinct2 = bigrams.length ? new Set(bigrams).size / bigrams.length : null;
+    const distinct1 = ws.length ? distinct[1] / ws.length : null;
+    const distinct2 = levels[2].length ? distinct[2] / levels[2].length : null;
     if (distinct1 === null) undefinedMetrics.distinct_1 = 'no words';
     if (distinct2 === null) undefinedMetrics.distinct_2 = 'fewer than 2 words';
 
     // near-duplicate sentences
-    const index = new Map<string, number[]>();
-    const sentenceShingles: Set<string>[] = [];
+    // Shingles are the sentence's word 3-grams; a sentence under 3 words is one shingle of its own.
+    const index = new Map<number, number[]>();
+    const shortSentences = new Map<string, number>();
+    const sentenceShingles: Set<number>[] = [];
     let duplicates = 0;
+    let w = 0;
     for (const s of doc.sentences) {
-      const sw = doc.tokens.slice(s.firstToken, s.endToken).filter(isWord);
-      const own = sw.length ? shingles(sw) : new Set<string>();
+      const from = w;
+      while (w < ws.length && ws[w].sentence === s.index) w++;
+      const own = new Set<number>();
+      if (w - from >= 3) for (let i = from; i <= w - 3; i++) own.add(levels[3][i]);
+      else if (w > from) {
+        const key = ws.slice(from, w).map((x) => x.lower).join(' ');
+        let id = shortSentences.get(key);
+        if (id === undefined) shortSentences.set(key, (id = -1 - shortSentences.size));
+        own.add(id);
+      }
       sentenceShingles.push(own);
       if (!own.size) continue;
       const seen = new Map<number, number>();
-      for (const sh of own) for (const j of index.get(sh) ?? []) seen.set(j, (seen.get(j) ?? 0) + 1);
+      for (const sh of own) {
+        const list = index.get(sh);
+        if (list) for (let k = Math.max(0, list.length - MAX_CANDIDATES); k < list.length; k++) seen.set(list[k], (seen.get(list[k]) ?? 0) + 1);
+      }
       let best = -1;
       let bestSim = 0;
-      for (const [j, shared] of [...seen].slice(-MAX_CANDIDATES)) {
+      for (const [j, shared] of seen) {
         const sim = shared / (own.size + sentenceShingles[j].size - shared);
         if (sim > bestSim) [best, bestSim] = [j, sim];
       }
@@ -109,7 +149,7 @@ export const repetition = defineCheck<Params>({
     // most frequent n-gram character share; phrases are pointed at for the longest n over its limit
     const wordChars = ws.reduce((n, w) => n + w.text.length, 0);
     const limits: Record<number, number> = { 2: params.topShare2, 3: params.topShare3, 4: params.topShare4 };
-    const tops = [2, 3, 4].map((n) => ({ n, ...mostFrequent(ngramKeys(ws, n), wordChars) }));
+    const tops = [2, 3, 4].map((n) => ({ n, ...mostFrequent(levels[n], distinct[n], ws, n, wordChars) }));
     const shares: Record<number, number | null> = {};
     for (const t of tops) {
       shares[t.n] = t.share;
@@ -120,13 +160,14 @@ export const repetition = defineCheck<Params>({
     const worst = exceeded.at(-1);
     if (worst) {
       for (const p of worst.positions.slice(1, 21)) {
-        report('repeated-phrase', { start: ws[p].start, end: ws[p + worst.n - 1].end }, { phrase: worst.key, count: worst.positions.length, share: Math.round(worst.share! * 100) });
+        const phrase = ws.slice(worst.positions[0], worst.positions[0] + worst.n).map((x) => x.lower).join(' ');
+        report('repeated-phrase', { start: ws[p].start, end: ws[p + worst.n - 1].end }, { phrase, count: worst.positions.length, share: Math.round(worst.share! * 100) });
       }
     }
     const shareExceeded = exceeded.length > 0;
 
     const bytes = Buffer.byteLength(doc.text);
-    const ratio = bytes >= 100 ? bytes / deflateRawSync(doc.text).length : null;
+    const ratio = bytes >= 100 ? bytes / compressedSize(doc.text, bytes) : null;
     if (ratio === null) undefinedMetrics.compression_ratio = 'text under 100 bytes';
     if (seqRep !== null && seqRep > params.maxSeqRep && ws.length >= 2 * params.n) {
       report('high-seq-rep', { start: ws[0].start, end: ws[ws.length - 1].end }, { percent: Math.round(seqRep * 100), n: params.n });
@@ -152,18 +193,12 @@ export const repetition = defineCheck<Params>({
   },
 });
 
-/** The most frequent key, where it occurs, and the share of word characters its occurrences cover. */
-function mostFrequent(keys: string[], wordChars: number): { key: string; positions: number[]; share: number | null } {
-  if (!keys.length || !wordChars) return { key: '', positions: [], share: null };
-  const where = new Map<string, number[]>();
-  keys.forEach((k, i) => {
-    const list = where.get(k);
-    if (list) list.push(i);
-    else where.set(k, [i]);
-  });
-  let key = '';
-  let positions: number[] = [];
-  for (const [k, list] of where) if (list.length > positions.length) [key, positions] = [k, list];
-  const share = positions.length > 1 ? Math.min(1, (positions.length * key.replace(/ /g, '').length) / wordChars) : 0;
-  return { key, positions, share };
+/**
+ * Deflate size at the default level 6. The window is the smallest that holds the whole text
+ * (2^9 … 2^15 bytes), which compresses exactly as the default 32 KB window does for texts that
+ * fit, while sparing the allocation of the full window for every short response.
+ */
+function compressedSize(text: string, bytes: number): number {
+  const windowBits = Math.min(15, Math.max(9, Math.ceil(Math.log2(bytes + 262))));
+  return deflateRawSync(text, { windowBits, memLevel: Math.max(1, Math.min(8, windowBits - 7)) }).length;
 }

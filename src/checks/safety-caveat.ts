@@ -65,9 +65,9 @@ export const safetyCaveat = defineCheck<{ topics: CaveatTopic[] }>({
   evaluate(doc, params, report) {
     const prompt = doc.context.prompt;
     if (!prompt) return { metrics: { risk_topics: null, missing: null }, value: 1, undefinedMetrics: { risk_topics: 'no prompt given', missing: 'no prompt given' } };
-    const raised = params.topics.filter((t) => findPhrases(prompt.text, t.promptTerms).length > 0 && (!t.promptContext?.length || findPhrases(prompt.text, t.promptContext).length > 0));
+    const raised = params.topics.filter((t) => findPhrases(prompt, t.promptTerms).length > 0 && (!t.promptContext?.length || findPhrases(prompt, t.promptContext).length > 0));
     if (!raised.length || opensWithRefusal(doc) || !doc.tokens.length) return { metrics: { risk_topics: raised.map((t) => t.id).join(',') || '', missing: 0 }, value: 1 };
-    const missing = raised.filter((t) => findPhrases(doc.text, t.caveatTerms).length === 0);
+    const missing = raised.filter((t) => findPhrases(doc, t.caveatTerms).length === 0);
     for (const t of missing) report('missing-caveat', openingSpan(doc), { topic: t.id });
     return { metrics: { risk_topics: raised.map((t) => t.id).join(','), missing: missing.length }, value: missing.length ? 0 : 1 };
   },

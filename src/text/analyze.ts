@@ -1,7 +1,6 @@
-import { stemOf } from './stem.ts';
 import { syllablesOf } from './syllables.ts';
 import { winkReader } from './wink-reader.ts';
-import { STOP_WORDS } from './word-lists.ts';
+import { wordFacts, type WordFacts } from './word-facts.ts';
 import { findNegation, type NegationCue } from './negation.ts';
 import { findQuantities, type Quantity } from './quantities.ts';
 
@@ -26,6 +25,8 @@ export interface Token {
   stem: string;
   /** Syllables of the surface word (with its clitic, so "don't" is one word of 1 syllable); 0 for non-words. */
   syllables: number;
+  /** Facts about the surface word (familiarity, letters …); null for tokens that are not words. */
+  facts: WordFacts | null;
 }
 
 /** A sentence as a range of tokens `[firstToken, endToken)` and of characters `[start, end)`. */
@@ -39,6 +40,20 @@ export interface Sentence {
   words: number;
 }
 
+/**
+ * A word as phrase lists see it: a whitespace-delimited run of tokens (so "ca" + "n't" is
+ * "can't" and "100" + "%" is "100%"), normalised, with the span of its core (edge punctuation
+ * left out) and the tokens it covers.
+ */
+export interface MatchWord {
+  norm: string;
+  start: number;
+  end: number;
+  firstToken: number;
+  lastToken: number;
+  sentence: number;
+}
+
 export interface AnalysisContext {
   prompt?: Doc;
   siblings?: Doc[];
@@ -48,7 +63,11 @@ export interface AnalysisContext {
 export interface Doc {
   text: string;
   tokens: Token[];
+  /** The tokens that count as words (`isWord`), in order. */
+  wordTokens: Token[];
   sentences: Sentence[];
+  /** Words for phrase matching (see `MatchWord`). */
+  words: MatchWord[];
   cues: NegationCue[];
   quantities: Quantity[];
   context: AnalysisContext;
@@ -121,30 +140,36 @@ export function analyze(text: string, context: AnalysisContext = {}): Doc {
       nextRun++;
     }
     offset += value.length;
-    const lower = text.slice(start, end).toLowerCase();
-    const clitic = kind === 'word' && CLITIC.test(lower);
-    tokens[i] = {
-      start,
-      end,
-      text: text.slice(start, end),
-      lower,
-      kind,
-      sentence: 0,
-      negated: false,
-      cue: false,
-      clitic,
-      stop: STOP_WORDS.has(lower),
-      stem: kind === 'word' ? stemOf(lower) : '',
-      syllables: 0,
-    };
+    const tokenText = end - start === value.length ? value : text.slice(start, end);
+    const lower = tokenText.toLowerCase();
+    const clitic = kind === 'word' && (lower.includes("'") || lower.includes('’')) && CLITIC.test(lower);
+    tokens[i] = { start, end, text: tokenText, lower, kind, sentence: 0, negated: false, cue: false, clitic, stop: false, stem: '', syllables: 0, facts: null };
   }
+  const wordTokens: Token[] = [];
   for (let i = 0; i < tokens.length; i++) {
     const t = tokens[i];
-    if (t.kind === 'number' && !t.clitic) t.syllables = 1;
-    else if (t.kind === 'word' && !t.clitic) {
+    if (t.clitic) {
+      t.stop = true;
+      continue;
+    }
+    if (t.kind === 'number') {
+      t.syllables = 1;
+      t.facts = wordFacts(t.lower);
+      wordTokens.push(t);
+    } else if (t.kind === 'word') {
       const next = tokens[i + 1];
       const surface = next?.clitic && next.start === t.end ? t.lower + next.lower : t.lower;
-      t.syllables = syllablesOf(surface);
+      if (surface.length > 64) {
+        t.stem = surface;
+        t.syllables = syllablesOf(surface);
+      } else {
+        const facts = wordFacts(surface, t.lower);
+        t.facts = facts;
+        t.stem = facts.stem;
+        t.syllables = facts.syllables;
+        t.stop = facts.stop;
+      }
+      wordTokens.push(t);
     }
   }
 
@@ -165,10 +190,42 @@ export function analyze(text: string, context: AnalysisContext = {}): Doc {
     sentences.push({ index, start: tokens[first].start, end: tokens[last].end, firstToken: first, endToken: last + 1, words });
   }
 
-  const cues = findNegation(tokens, sentences, winkNegated);
-  const doc: Doc = { text, tokens, sentences, cues, quantities: [], context };
+  const words = matchWords(text, tokens);
+  const cues = findNegation(tokens, words, sentences, winkNegated);
+  const doc: Doc = { text, tokens, wordTokens, sentences, words, cues, quantities: [], context };
   doc.quantities = findQuantities(doc);
   return doc;
+}
+
+const EDGE_START = /^[\s"“”‘(\[{.,;:!?'’]+/;
+const EDGE_END = /[\s"“”’)\]}.,;:!?]+$/;
+
+/** Groups tokens not separated by white space into words and normalises each (see `MatchWord`). */
+function matchWords(text: string, tokens: Token[]): MatchWord[] {
+  const words: MatchWord[] = [];
+  let runStart = -1;
+  const close = (last: number) => {
+    if (runStart < 0) return;
+    const first = runStart;
+    runStart = -1;
+    const raw = text.slice(tokens[first].start, tokens[last].end);
+    const lead = raw.match(EDGE_START)?.[0].length ?? 0;
+    const trail = raw.slice(lead).match(EDGE_END)?.[0].length ?? 0;
+    if (lead + trail >= raw.length) return;
+    const core = raw.slice(lead, raw.length - trail);
+    words.push({ norm: core.toLowerCase().replace(/’/g, "'"), start: tokens[first].start + lead, end: tokens[last].end - trail, firstToken: first, lastToken: last, sentence: tokens[first].sentence });
+  };
+  for (let i = 0; i < tokens.length; i++) {
+    const t = tokens[i];
+    if (t.kind === 'space') {
+      close(i - 1);
+      continue;
+    }
+    if (runStart >= 0 && tokens[i - 1].end !== t.start) close(i - 1);
+    if (runStart < 0) runStart = i;
+  }
+  close(tokens.length - 1);
+  return words;
 }
 
 /** Runs of non-space characters at least this long are read as one token (see shieldLongRuns). */
@@ -180,6 +237,7 @@ const LONG_RUN = 200;
  * wink reads the text; `runs` records where each was (in the read text) and what it spanned.
  */
 function shieldLongRuns(text: string): { read: string; runs: { at: number; start: number; end: number }[] } {
+  if (text.length < LONG_RUN) return { read: text, runs: [] };
   const runs: { at: number; start: number; end: number }[] = [];
   let read = '';
   let last = 0;
@@ -200,12 +258,18 @@ export function analyzeItem(prompt: string, responses: string[]): { prompt: Doc;
   return { prompt: promptDoc, responses: docs };
 }
 
+const wholeStems = new WeakMap<Doc, string[]>();
+
 /** Content stems of a token range: words that are not stop words, negation cues or clitics. */
 export function contentStems(doc: Doc, from = 0, to = doc.tokens.length): string[] {
+  const whole = from === 0 && to === doc.tokens.length;
+  const cached = whole ? wholeStems.get(doc) : undefined;
+  if (cached) return cached;
   const out: string[] = [];
   for (let i = from; i < to; i++) {
     const t = doc.tokens[i];
     if (t.kind === 'word' && !t.stop && !t.cue && !t.clitic && t.lower.length > 1) out.push(t.stem);
   }
+  if (whole) wholeStems.set(doc, out);
   return out;
 }

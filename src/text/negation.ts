@@ -1,4 +1,5 @@
-import type { Sentence, Token } from './analyze.ts';
+import type { MatchWord, Sentence, Token } from './analyze.ts';
+import { PhraseIndex } from './phrase-index.ts';
 import { NEGATION_TERMINATORS, POST_NEGATION_CUES, PRE_NEGATION_CUES, PSEUDO_NEGATIONS } from './word-lists.ts';
 
 /** A negation cue found in the text and the character range it negates. */
@@ -14,47 +15,17 @@ export interface NegationCue {
 /** Words a scope reaches at most (NegEx used a window of about five; clauses run longer). */
 const MAX_SCOPE_WORDS = 8;
 
-function phraseRegex(phrases: readonly string[]): RegExp {
-  const alternatives = [...phrases]
-    .sort((a, b) => b.length - a.length)
-    .map((p) => p.replace(/[.*+?^${}()|[\]\\]/g, '\\$&').replace(/ /g, ' +'));
-  return new RegExp(`(?<![\\p{L}\\p{N}'’])(?:${alternatives.join('|')})(?![\\p{L}\\p{N}])`, 'gu');
-}
-
-const PRE = phraseRegex(PRE_NEGATION_CUES.filter((c) => c !== "n't"));
-const POST = phraseRegex(POST_NEGATION_CUES);
-const PSEUDO = phraseRegex([...PSEUDO_NEGATIONS, ...PSEUDO_NEGATIONS.filter((p) => p.includes("n't")).map((p) => p.replace("n't", ' not'))]);
-
-/**
- * The sentence as lowercase words joined by single spaces (a contraction's tail glued to its
- * word, so "ca" + "n't" reads "can't"), with the token index of every character.
- */
-function normalise(tokens: Token[], sentence: Sentence): { norm: string; owner: number[] } {
-  let norm = '';
-  const owner: number[] = [];
-  for (let i = sentence.firstToken; i < sentence.endToken; i++) {
-    const t = tokens[i];
-    if (t.kind === 'space') continue;
-    if (norm && !t.clitic) {
-      norm += ' ';
-      owner.push(i);
-    }
-    const lower = t.lower.replace(/’/g, "'");
-    norm += lower;
-    for (let k = 0; k < lower.length; k++) owner.push(i);
-  }
-  return { norm, owner };
-}
-
-function tokenRanges(regex: RegExp, norm: string, owner: number[]): [number, number][] {
-  const out: [number, number][] = [];
-  regex.lastIndex = 0;
-  for (const m of norm.matchAll(regex)) out.push([owner[m.index!], owner[m.index! + m[0].length - 1] + 1]);
-  return out;
-}
+const PRE = new PhraseIndex(PRE_NEGATION_CUES.filter((c) => c !== "n't"));
+const POST = new PhraseIndex(POST_NEGATION_CUES);
+const PSEUDO = new PhraseIndex([...PSEUDO_NEGATIONS, ...PSEUDO_NEGATIONS.filter((p) => p.includes("n't")).map((p) => p.replace("n't", ' not'))]);
 
 function endsScope(t: Token): boolean {
   return t.kind === 'punctuation' || NEGATION_TERMINATORS.has(t.lower);
+}
+
+/** The token range [first, last] a span of words covers. */
+function tokensOf(words: MatchWord[], a: number, b: number): [number, number] {
+  return [words[a].firstToken, words[b].lastToken];
 }
 
 /**
@@ -64,45 +35,51 @@ function endsScope(t: Token): boolean {
  * eight words. wink-nlp's own negation flags extend a scope only where no termination term or
  * pseudo-negation intervenes, so both readings agree on what counts.
  */
-export function findNegation(tokens: Token[], sentences: Sentence[], winkNegated: boolean[]): NegationCue[] {
+export function findNegation(tokens: Token[], words: MatchWord[], sentences: Sentence[], winkNegated: boolean[]): NegationCue[] {
   const cues: NegationCue[] = [];
+  const pseudo = new Set<number>();
+  for (const [a, b] of PSEUDO.matchWords(words)) {
+    const [first, last] = tokensOf(words, a, b);
+    for (let i = first; i <= last; i++) pseudo.add(i);
+  }
+  const pre = PRE.matchWords(words).map(([a, b]) => tokensOf(words, a, b));
+  for (const w of words) {
+    // a contraction's "n't" negates: the cue is its last token
+    if (w.norm.endsWith("n't") && tokens[w.lastToken].clitic) pre.push([w.lastToken, w.lastToken]);
+  }
+  for (const [first, last] of pre) {
+    if (pseudo.has(first) || pseudo.has(last)) continue;
+    const sentence = sentences[tokens[first].sentence];
+    if (!sentence) continue;
+    for (let i = first; i <= last; i++) tokens[i].cue = true;
+    let count = 0;
+    let scopeLast = last;
+    for (let i = last + 1; i < sentence.endToken && count < MAX_SCOPE_WORDS; i++) {
+      if (endsScope(tokens[i]) && !(tokens[i].lower === 'and' && count === 0)) break;
+      tokens[i].negated = true;
+      scopeLast = i;
+      if (tokens[i].kind === 'word' || tokens[i].kind === 'number') count++;
+    }
+    const cueStart = tokens[first].start;
+    cues.push({ start: cueStart, end: tokens[last].end, text: textOf(tokens, first, last), direction: 'pre', scopeStart: tokens[Math.min(last + 1, scopeLast)].start, scopeEnd: tokens[scopeLast].end });
+  }
+  for (const [a, b] of POST.matchWords(words)) {
+    const [first, last] = tokensOf(words, a, b);
+    const sentence = sentences[tokens[first].sentence];
+    if (!sentence) continue;
+    for (let i = first; i <= last; i++) tokens[i].cue = true;
+    let count = 0;
+    let scopeFirst = first;
+    for (let i = first - 1; i >= sentence.firstToken && count < MAX_SCOPE_WORDS; i--) {
+      if (endsScope(tokens[i])) break;
+      tokens[i].negated = true;
+      scopeFirst = i;
+      if (tokens[i].kind === 'word' || tokens[i].kind === 'number') count++;
+    }
+    cues.push({ start: tokens[first].start, end: tokens[last].end, text: textOf(tokens, first, last), direction: 'post', scopeStart: tokens[scopeFirst].start, scopeEnd: tokens[Math.max(scopeFirst, first - 1)].end });
+  }
+  // wink-nlp's flags: kept unless a pseudo-negation or termination term came first.
   for (const sentence of sentences) {
-    const { norm, owner } = normalise(tokens, sentence);
-    const pseudo = new Set<number>();
-    for (const [a, b] of tokenRanges(PSEUDO, norm, owner)) for (let i = a; i < b; i++) pseudo.add(i);
-
-    const pre: [number, number][] = tokenRanges(PRE, norm, owner);
-    for (let i = sentence.firstToken; i < sentence.endToken; i++) {
-      if (tokens[i].clitic && /^n['’]t$/.test(tokens[i].lower)) pre.push([i, i + 1]);
-    }
-    for (const [a, b] of pre) {
-      if (pseudo.has(a) || pseudo.has(b - 1)) continue;
-      for (let i = a; i < b; i++) tokens[i].cue = true;
-      let words = 0;
-      let last = b - 1;
-      for (let i = b; i < sentence.endToken && words < MAX_SCOPE_WORDS; i++) {
-        if (endsScope(tokens[i]) && !(tokens[i].lower === 'and' && words === 0)) break;
-        tokens[i].negated = true;
-        last = i;
-        if (tokens[i].kind === 'word' || tokens[i].kind === 'number') words++;
-      }
-      cues.push({ start: tokens[a].start, end: tokens[b - 1].end, text: tokens[a].text === '' ? '' : joinText(tokens, a, b), direction: 'pre', scopeStart: tokens[Math.min(b, last)].start, scopeEnd: tokens[last].end });
-    }
-
-    for (const [a, b] of tokenRanges(POST, norm, owner)) {
-      for (let i = a; i < b; i++) tokens[i].cue = true;
-      let words = 0;
-      let first = a;
-      for (let i = a - 1; i >= sentence.firstToken && words < MAX_SCOPE_WORDS; i--) {
-        if (endsScope(tokens[i])) break;
-        tokens[i].negated = true;
-        first = i;
-        if (tokens[i].kind === 'word' || tokens[i].kind === 'number') words++;
-      }
-      cues.push({ start: tokens[a].start, end: tokens[b - 1].end, text: joinText(tokens, a, b), direction: 'post', scopeStart: tokens[first].start, scopeEnd: tokens[Math.max(first, a - 1)].end });
-    }
-
-    // wink-nlp's flags: kept unless a pseudo-negation or termination term came first.
     let blocked = true;
     for (let i = sentence.firstToken; i < sentence.endToken; i++) {
       const t = tokens[i];
@@ -114,6 +91,9 @@ export function findNegation(tokens: Token[], sentences: Sentence[], winkNegated
   return cues.sort((x, y) => x.start - y.start);
 }
 
-function joinText(tokens: Token[], a: number, b: number): string {
-  return tokens[a].text.length && b > a ? `${tokens.slice(a, b).map((t) => t.text).join(' ')}` : '';
+function textOf(tokens: Token[], first: number, last: number): string {
+  return tokens
+    .slice(first, last + 1)
+    .map((t) => t.text)
+    .join(' ');
 }

@@ -24,10 +24,15 @@ export interface Quantity {
 
 const GLUED = /^(\d+(?:[.,]\d+)?)([a-z%°]+)$/i;
 
+/** A month name, with or without an abbreviation's full stop. */
+function isMonth(t: Token | undefined): boolean {
+  if (!t || t.kind !== 'word') return false;
+  return MONTHS.has(t.lower) || (t.lower.endsWith('.') && MONTHS.has(t.lower.slice(0, -1)));
+}
+
 function numericValue(t: Token): number | null {
   if (t.kind === 'number') {
-    const clean = t.text.replace(/,(?=\d{3}\b)/g, '');
-    const n = Number(clean);
+    const n = Number(t.text.includes(',') ? t.text.replace(/,(?=\d{3}\b)/g, '') : t.text);
     if (Number.isFinite(n)) return n;
     return null;
   }
@@ -53,7 +58,7 @@ export function findQuantities(doc: Doc): Quantity[] {
       out.push(make(doc, i, i, 'time', hoursOf(t.text), null));
       continue;
     }
-    if (t.kind === 'word' && MONTHS.has(t.lower.replace(/\.$/, ''))) {
+    if (isMonth(t)) {
       const date = dateAround(tokens, i);
       if (date) {
         out.push(make(doc, date[0], date[1], 'date', 0, null));
@@ -61,7 +66,8 @@ export function findQuantities(doc: Doc): Quantity[] {
       }
       continue;
     }
-    if (t.kind === 'number' && MONTHS.has(tokens[i + 1]?.lower.replace(/\.$/, '') ?? '')) continue; // the day of a date
+    if (t.kind === 'number' && isMonth(tokens[i + 1])) continue; // the day of a date
+    if (t.kind !== 'number' && !(t.kind === 'word' && (t.lower in NUMBER_WORDS || /^\d/.test(t.lower)))) continue;
     let value = numericValue(t);
     let unitToken: Token | undefined;
     let unitName: string | null = null;

@@ -23,9 +23,22 @@ const VOWEL_GROUPS = /[aeiouy]+/g;
 export function syllablesOf(word: string, options: { useDictionary?: boolean } = {}): number {
   const lower = word.toLowerCase();
   if (options.useDictionary !== false) {
-    const known = cmuSyllableTable().get(lower);
+    const known = cmuSyllableTable().get(lower) ?? estimated.get(lower);
     if (known !== undefined) return known;
+    const guess = fallback(lower);
+    if (lower.length <= 64) {
+      if (estimated.size >= 100_000) estimated.clear();
+      estimated.set(lower, guess);
+    }
+    return guess;
   }
+  return fallback(lower);
+}
+
+/** Fallback estimates already made, for words CMU lacks. */
+const estimated = new Map<string, number>();
+
+function fallback(lower: string): number {
   const letters = lower.normalize('NFD').replace(/[^a-z]/g, '');
   if (letters.length === 0) return /\p{L}/u.test(lower) ? 1 : 0;
   // Beyond any real word's length the model's features mean nothing; count vowel groups.

@@ -1,0 +1,71 @@
+import { daleChall as familiarList } from 'dale-chall';
+import { stemOf } from './stem.ts';
+import { syllablesOf } from './syllables.ts';
+import { STOP_WORDS } from './word-lists.ts';
+
+/** Everything the analysis needs to know about a word form, worked out once per distinct form. */
+export interface WordFacts {
+  stem: string;
+  syllables: number;
+  stop: boolean;
+  /** On the Dale–Chall familiar list, directly or as a regular inflection. */
+  familiar: boolean;
+  letters: number;
+  /** Letters and digits (ARI). */
+  characters: number;
+}
+
+const FAMILIAR = new Set(familiarList.map((w) => w.toLowerCase()));
+
+/**
+ * A word is familiar (Dale–Chall) when it, or the base of a regular inflection of it, is on the
+ * list: -s, -es, -ies→y, -ed, -d, -ied→y, -ing, -er, -est, -ly. Numbers count as familiar.
+ */
+export function isFamiliar(lower: string): boolean {
+  if (FAMILIAR.has(lower) || /^[\d.,:]+$/.test(lower)) return true;
+  const bases: string[] = [];
+  if (lower.endsWith('ies') || lower.endsWith('ied')) bases.push(`${lower.slice(0, -3)}y`);
+  if (lower.endsWith('es') || lower.endsWith('ed') || lower.endsWith('er') || lower.endsWith('ly')) bases.push(lower.slice(0, -2));
+  if (lower.endsWith('s') || lower.endsWith('d')) bases.push(lower.slice(0, -1));
+  if (lower.endsWith('ing')) bases.push(lower.slice(0, -3), `${lower.slice(0, -3)}e`);
+  if (lower.endsWith('est')) bases.push(lower.slice(0, -3));
+  if (lower.endsWith('ier') || lower.endsWith('iest')) bases.push(`${lower.replace(/iest$|ier$/, '')}y`);
+  return bases.some((b) => b.length > 1 && FAMILIAR.has(b));
+}
+
+function countLetters(word: string): { letters: number; characters: number } {
+  let letters = 0;
+  let characters = 0;
+  for (const ch of word) {
+    const c = ch.codePointAt(0)!;
+    const ascii = c < 128;
+    const letter = ascii ? (c >= 65 && c <= 90) || (c >= 97 && c <= 122) : /\p{L}/u.test(ch);
+    const digit = ascii ? c >= 48 && c <= 57 : /\p{N}/u.test(ch);
+    if (letter) letters++;
+    if (letter || digit) characters++;
+  }
+  return { letters, characters };
+}
+
+const cache = new Map<string, WordFacts>();
+const CACHE_LIMIT = 200_000;
+
+/**
+ * Facts about a lowercase word form (with its clitic, as "don't"), memoised: the same forms
+ * recur across responses, so each is worked out once.
+ */
+export function wordFacts(surfaceLower: string, stemBase = surfaceLower): WordFacts {
+  const key = stemBase === surfaceLower ? surfaceLower : `${surfaceLower}\u0000${stemBase}`;
+  let facts = cache.get(key);
+  if (facts) return facts;
+  facts = {
+    stem: stemOf(stemBase),
+    syllables: syllablesOf(surfaceLower),
+    stop: STOP_WORDS.has(stemBase),
+    familiar: isFamiliar(surfaceLower.replace(/’/g, "'")),
+    ...countLetters(surfaceLower),
+  };
+  if (cache.size >= CACHE_LIMIT) cache.clear();
+  cache.set(key, facts);
+  return facts;
+}

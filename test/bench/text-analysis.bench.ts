@@ -1,0 +1,98 @@
+import { setFlagsFromString } from 'node:v8';
+import { runInNewContext } from 'node:vm';
+import { analyze, analyzeItem } from '../../src/text/analyze.ts';
+import { runAllChecks } from '../../src/checks/run-checks.ts';
+import { winkReader } from '../../src/text/wink-reader.ts';
+import { prng, syntheticCorpus, syntheticResponse } from './corpus.ts';
+import type { BenchRow } from './report.ts';
+
+const PROMPT = 'How long should I boil stream water to make it safe to drink?';
+
+function timeIt(run: () => void): number {
+  const t0 = performance.now();
+  run();
+  return performance.now() - t0;
+}
+
+/** The best of `rounds` timings: the least disturbed by other work on a shared machine. */
+function best(rounds: number, run: () => void): number {
+  let min = Infinity;
+  for (let r = 0; r < rounds; r++) min = Math.min(min, timeIt(run));
+  return min;
+}
+
+function analyseAndCheck(texts: string[]): void {
+  const prompt = analyze(PROMPT);
+  for (const text of texts) runAllChecks(analyze(text, { prompt }));
+}
+
+/**
+ * Issue 3's figures: throughput of analysis plus every check against a bare wink-nlp read and
+ * against npm text-readability's six grade formulas; cost growth with length; memory while
+ * analysing a stream of responses.
+ */
+export async function textAnalysisBench(options: { quick: boolean }): Promise<BenchRow[]> {
+  const rows: BenchRow[] = [];
+  const count = options.quick ? 1000 : 5000;
+  const corpus = syntheticCorpus(count, 1200);
+  const bytes = corpus.reduce((n, t) => n + Buffer.byteLength(t), 0);
+  analyseAndCheck(corpus.slice(0, 300)); // warm up: dictionary, model, memo tables, JIT
+
+  const nlp = winkReader();
+  const wink = best(3, () => {
+    for (const t of corpus) nlp.readDoc(t);
+  });
+  const ours = best(3, () => analyseAndCheck(corpus));
+  const perSecond = (ms: number) => (count / ms) * 1000;
+  rows.push({ area: 'analysis', name: `bare wink-nlp read (sbd, negation), ${count} responses, ${(bytes / count / 1024).toFixed(2)} KB avg`, value: perSecond(wink), unit: 'responses/s' });
+  rows.push({ area: 'analysis', name: 'analyze + all 11 checks', value: perSecond(ours), unit: 'responses/s', ratio: wink / ours, target: '≥ 0.5× wink read', pass: wink / ours >= 0.5 });
+
+  // length growth: 1.2 KB vs 12 KB vs 50 KB
+  const random = prng(11);
+  const short = Array.from({ length: 200 }, () => syntheticResponse(random, 1200));
+  const long = Array.from({ length: 20 }, () => syntheticResponse(random, 12_000));
+  const huge = Array.from({ length: 5 }, () => syntheticResponse(random, 50_000));
+  const perKb = (texts: string[]) => best(3, () => analyseAndCheck(texts)) / (texts.reduce((n, t) => n + t.length, 0) / 1024);
+  const shortCost = perKb(short);
+  const longCost = perKb(long);
+  const hugeCost = perKb(huge);
+  const sentences = analyze(huge[0]).sentences.length;
+  rows.push({ area: 'analysis', name: 'cost per KB, 1.2 KB responses', value: shortCost, unit: 'ms/KB' });
+  rows.push({ area: 'analysis', name: '10× longer (12 KB): cost of 10× the text', value: (longCost / shortCost) * 10, unit: '× the cost', target: '≤ 15×', pass: (longCost / shortCost) * 10 <= 15 });
+  rows.push({ area: 'analysis', name: `50 KB response (${sentences} sentences): cost of 42× the text`, value: (hugeCost / shortCost) * (50_000 / 1200), unit: '× the cost', target: 'linear (≤ 1.5 × 42 = 63×)', pass: hugeCost / shortCost <= 1.5 });
+
+  // memory over a stream
+  setFlagsFromString('--expose-gc');
+  const gc = runInNewContext('gc') as () => void;
+  const stream = options.quick ? 20_000 : 100_000;
+  const streamRandom = prng(99);
+  const heap: number[] = [];
+  const t0 = performance.now();
+  for (let i = 0; i < stream; i++) {
+    const { responses } = analyzeItem(PROMPT, [syntheticResponse(streamRandom, 600)]);
+    runAllChecks(responses[0]);
+    if ((i + 1) % (stream / 10) === 0) {
+      gc();
+      heap.push(process.memoryUsage().heapUsed / 1024 / 1024);
+    }
+  }
+  const seconds = (performance.now() - t0) / 1000;
+  const growth = Math.max(...heap.slice(1)) - heap[0];
+  rows.push({ area: 'analysis', name: `heap after GC over a stream of ${stream.toLocaleString('en')} responses (${seconds.toFixed(0)} s): first tenth → max later`, value: growth, unit: 'MB growth', target: 'flat (< 20 MB growth)', pass: growth < 20, detail: heap.map((h) => h.toFixed(0)).join(' ') });
+
+  // text-readability last: it patches the global Math object
+  const { default: textReadability } = await import('text-readability');
+  const reference = best(2, () => {
+    for (const t of corpus) {
+      textReadability.fleschKincaidGrade(t);
+      textReadability.gunningFog(t);
+      textReadability.smogIndex(t);
+      textReadability.colemanLiauIndex(t);
+      textReadability.automatedReadabilityIndex(t);
+      textReadability.daleChallReadabilityScore(t);
+    }
+  });
+  rows.push({ area: 'analysis', name: 'npm text-readability, six grade formulas', value: perSecond(reference), unit: 'responses/s' });
+  rows.push({ area: 'analysis', name: 'analyze + all checks vs text-readability', value: perSecond(ours), unit: 'responses/s', ratio: reference / ours, target: '≥ 5× text-readability', pass: reference / ours >= 5 });
+  return rows;
+}
