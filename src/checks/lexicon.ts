@@ -1,10 +1,14 @@
 import { isWord } from '../text/analyze.ts';
 import { stemOf } from '../text/stem.ts';
 import { defineCheck } from './define-check.ts';
+import { tokenAt } from './text-search.ts';
 
 /** A rubric term: words matched on word boundaries, optionally by stem, with its category and severity. */
 export interface LexiconTerm {
-  term: string;
+  /** Words to find; or give `pattern` instead. */
+  term?: string;
+  /** A regular expression (checked for catastrophic backtracking when the rubric is loaded). */
+  pattern?: string;
   category: string;
   severity?: 'info' | 'warn' | 'error' | 'critical';
   /** Match any inflection (compares Porter stems). */
@@ -27,6 +31,16 @@ interface CompiledTerm extends LexiconTerm {
   words: string[];
 }
 
+const patterns = new Map<string, RegExp>();
+
+/** A term's pattern compiled once: case-insensitive, Unicode, global. */
+function compiledPattern(pattern: string): RegExp {
+  let regex = patterns.get(pattern);
+  if (!regex) patterns.set(pattern, (regex = new RegExp(pattern, 'giu')));
+  regex.lastIndex = 0;
+  return regex;
+}
+
 const compiledCache = new WeakMap<LexiconTerm[], Map<string, CompiledTerm[]>>();
 
 /** Terms indexed by their first word (or its stem), compiled once per term list. */
@@ -35,6 +49,7 @@ function compile(terms: LexiconTerm[]): Map<string, CompiledTerm[]> {
   if (index) return index;
   index = new Map();
   for (const t of terms) {
+    if (t.term === undefined) continue;
     const words = t.term.toLowerCase().split(/\s+/).filter(Boolean).map((w) => (t.stem ? stemOf(w) : w));
     if (!words.length) continue;
     const list = index.get(words[0]);
@@ -55,7 +70,7 @@ export const lexicon = defineCheck<{ terms: LexiconTerm[] }>({
     id: 'lexicon',
     description: 'Terms from the rubric\'s lists (phrases, stems, word boundaries), with categories and severities, respecting negation.',
     params: {
-      terms: { type: 'terms', default: DEFAULT_TERMS, description: 'Terms: {term, category, severity?, stem?, evenNegated?}.' },
+      terms: { type: 'terms', default: DEFAULT_TERMS, description: 'Terms: {term or pattern, category, severity?, stem?, even_negated?}.' },
     },
     messages: {
       term: '"{term}" ({category})',
@@ -77,7 +92,17 @@ export const lexicon = defineCheck<{ terms: LexiconTerm[] }>({
         for (let k = 0; k < n && ok; k++) ok = (term.stem ? words[i + k].stem : words[i + k].lower) === term.words[k];
         if (!ok) continue;
         if (w.negated && !term.evenNegated) continue;
-        report('term', { start: w.start, end: words[i + n - 1].end }, { term: term.term, category: term.category, severity: term.severity ?? 'warn' });
+        report('term', { start: w.start, end: words[i + n - 1].end }, { term: term.term ?? '', category: term.category, severity: term.severity ?? 'warn' });
+        matches++;
+      }
+    }
+    for (const term of params.terms) {
+      if (term.pattern === undefined) continue;
+      for (const m of doc.text.matchAll(compiledPattern(term.pattern))) {
+        if (m[0] === '') continue;
+        const token = tokenAt(doc, m.index!);
+        if (token?.negated && !term.evenNegated) continue;
+        report('term', { start: m.index!, end: m.index! + m[0].length }, { term: term.pattern, category: term.category, severity: term.severity ?? 'warn' });
         matches++;
       }
     }

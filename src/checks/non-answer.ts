@@ -88,7 +88,10 @@ export const nonAnswer = defineCheck<{ minWords: number; minSimilarity: number; 
     // a response is off-topic only when it is far from both.
     const siblingSimilarity = Math.max(0, ...siblings.map((d) => tfidfCosine(own, contentStems(d), corpus)));
     const topical = Math.max(similarity, siblingSimilarity);
-    const offTopic = !continues && words >= params.minWords && promptStems.length > 0 && topical < params.minSimilarity;
+    // With no other candidates to compare with, a short answer sharing no words with a short
+    // prompt is weak evidence ("Light is fast…" for a question about thunder): ask for more text.
+    const enoughText = siblings.length > 0 ? words >= params.minWords : words >= Math.max(params.minWords, 20);
+    const offTopic = !continues && enoughText && promptStems.length > 0 && topical < params.minSimilarity;
     if (offTopic) {
       const first = doc.sentences.find((s) => s.words > 0)!;
       report('off-topic', first, { similarity: topical.toFixed(2) });

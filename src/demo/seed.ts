@@ -2,7 +2,10 @@ import { createHash } from 'node:crypto';
 import type { Kysely } from 'kysely';
 import { generatePassword } from '../auth/password.ts';
 import type { Role } from '../auth/roles.ts';
-import { flagWeight } from '../review/flag-severity.ts';
+import { fileURLToPath } from 'node:url';
+import { loadRubricFile } from '../rubric/load.ts';
+import { scoreItem } from '../rubric/score.ts';
+import { ensureRubricVersion, storeItemScore } from '../store/repos/scores.ts';
 import { storeBatch } from '../store/repos/batches.ts';
 import { recordAudit } from '../store/repos/audit.ts';
 import { insertDecision, insertReview, setItemState, type Ranking } from '../store/repos/reviews.ts';
@@ -23,6 +26,8 @@ export const DEMO_USERS: { username: string; displayName: string; roles: Role[] 
 ];
 
 export const DEMO_BATCH_NAME = 'Cairnfield support — flagged week 48';
+/** The rubric the demo batch is scored with. */
+export const DEMO_RUBRIC = fileURLToPath(new URL('../../rubrics/cairnfield-support.yaml', import.meta.url));
 const SEEDED_KEY = 'demo_seeded_at';
 
 export interface SeedResult {
@@ -54,8 +59,9 @@ export async function seedDemo(db: Kysely<Database>, options: { password?: (user
     prompt: item.prompt,
     flag: item.flag ?? null,
     responses: item.responses.map((text, i) => ({ responseId: String.fromCharCode(97 + i), text })),
-    priority: flagWeight(item.flag?.severity),
   }));
+  const rubric = loadRubricFile(DEMO_RUBRIC).rubric;
+  if (!rubric) throw new Error(`the demo rubric ${DEMO_RUBRIC} does not load — run plumbline rubric check on it`);
   const { itemIds } = await storeBatch(db, {
     name: DEMO_BATCH_NAME,
     sourceHash: createHash('sha256').update(JSON.stringify(items)).digest('hex'),
@@ -63,9 +69,16 @@ export async function seedDemo(db: Kysely<Database>, options: { password?: (user
     reviewsRequired: 2,
     blindFirst: true,
     consensusRule: { kind: 'top' },
+    rubricId: rubric.id,
     createdBy: ids.get('data') ?? null,
     items,
   });
+  await ensureRubricVersion(db, rubric, ids.get('policy') ?? null, 'shipped with the demo');
+  for (const [i, item] of items.entries()) {
+    const rows = await db.selectFrom('responses').select(['id', 'response_id']).where('item_id', '=', itemIds[i]).execute();
+    const scored = scoreItem(rubric, { prompt: item.prompt, responses: item.responses, flagSeverity: item.flag?.severity ?? null });
+    await storeItemScore(db, itemIds[i], scored, new Map(rows.map((r) => [r.response_id, r.id])));
+  }
 
   const byPrompt = new Map(cairnfieldItems.map((item, i) => [item.promptId, { itemId: itemIds[i], count: item.responses.length }]));
   for (const plan of demoReviews) {
