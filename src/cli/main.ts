@@ -3,12 +3,12 @@ import { parseArgs } from './args.ts';
 import type { Command, CommandIo } from './command.ts';
 import { analyzeCommand } from './commands/analyze.ts';
 import { dbStatusCommand } from './commands/db-status.ts';
-import { rubricCheckCommand, rubricTestCommand } from './commands/rubric.ts';
+import { rubricCheckCommand, rubricDiffCommand, rubricTestCommand } from './commands/rubric.ts';
 import { scoreCommand } from './commands/score.ts';
 import { serveCommand } from './commands/serve.ts';
 
 /** Every command, in the order `plumbline --help` lists them. */
-export const COMMANDS: Command[] = [serveCommand, dbStatusCommand, analyzeCommand, scoreCommand, rubricCheckCommand, rubricTestCommand];
+export const COMMANDS: Command[] = [serveCommand, dbStatusCommand, analyzeCommand, scoreCommand, rubricCheckCommand, rubricTestCommand, rubricDiffCommand];
 
 export function helpText(): string {
   const width = Math.max(...COMMANDS.map((c) => c.name.length));

@@ -11,6 +11,7 @@ import { sessionLoader } from './middleware/session.ts';
 import { authRoutes } from './routes/auth.tsx';
 import { batchRoutes } from './routes/batches.tsx';
 import { queueRoutes } from './routes/queue.tsx';
+import { rubricRoutes } from './routes/rubrics.tsx';
 import { staticRoutes } from './routes/static-files.ts';
 
 export interface AppOptions {
@@ -43,6 +44,7 @@ export function createApp(options: AppOptions) {
   app.route('/', authRoutes());
   app.route('/', queueRoutes());
   app.route('/', batchRoutes());
+  app.route('/', rubricRoutes());
 
   app.notFound((c) => renderError(c, new HttpError(404, 'There is no page at this address. Go back to the queue.')));
   app.onError((error, c) => renderError(c, error));

@@ -4,12 +4,13 @@
  * Benchmarks print figures; they never fail the run (`npm test` is for pass/fail).
  */
 import { writeFileSync, mkdirSync } from 'node:fs';
+import { rubricBench } from './rubric.bench.ts';
 import { textAnalysisBench } from './text-analysis.bench.ts';
 import { printReport, type BenchRow } from './report.ts';
 
 const quick = process.argv.includes('--quick');
 const rows: BenchRow[] = [];
-for (const bench of [textAnalysisBench]) rows.push(...(await bench({ quick })));
+for (const bench of [rubricBench, textAnalysisBench]) rows.push(...(await bench({ quick })));
 const report = printReport(rows);
 console.log(report);
 mkdirSync('bench-results', { recursive: true });

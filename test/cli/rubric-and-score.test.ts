@@ -88,3 +88,27 @@ describe('plumbline rubric check and rubric test', () => {
     expect(test.stdout).toMatch(/^0 passed, 1 failed$/m);
   });
 });
+
+describe('plumbline rubric diff', () => {
+  it('re-scores a stored batch with the old and new rubric and reports the changes', async () => {
+    const { openStore } = await import('../../src/store/connect.ts');
+    const { migrate } = await import('../../src/store/migrate.ts');
+    const { seedDemo, DEMO_BATCH_NAME } = await import('../../src/demo/seed.ts');
+    const db = join(dir, 'diff.db');
+    const store = await openStore({ kind: 'sqlite', file: db });
+    await migrate(store);
+    await seedDemo(store.db, { password: () => 'pw-diff-123' });
+    await store.close();
+    const root = new URL('../../', import.meta.url).pathname;
+    const draft = join(dir, 'draft.yaml');
+    writeFileSync(draft, readFileSync(join(root, 'rubrics/cairnfield-support.yaml'), 'utf8').replace('overall_bands: { pass: 80, review: 55 }', 'overall_bands: { pass: 95, review: 55 }'));
+    const result = runCli(['rubric', 'diff', 'rubrics/cairnfield-support.yaml', draft, '--batch', DEMO_BATCH_NAME], { cwd: root, env: { PLUMBLINE_DB: db } });
+    expect(result.code, result.stderr).toBe(0);
+    expect(result.stdout).toContain(`${DEMO_BATCH_NAME}: 40 items, 175 responses re-scored`);
+    expect(result.stdout).toMatch(/^\d+ candidates change band$/m);
+    expect(result.stdout).toMatch(/: pass → review \(/);
+    const missing = runCli(['rubric', 'diff', 'rubrics/cairnfield-support.yaml', draft, '--batch', 'nope'], { cwd: root, env: { PLUMBLINE_DB: db } });
+    expect(missing.code).toBe(1);
+    expect(missing.stderr).toContain('there is no batch "nope"');
+  });
+});
