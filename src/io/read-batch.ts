@@ -1,8 +1,8 @@
 import { createReadStream } from 'node:fs';
-import { createInterface } from 'node:readline';
 import { Readable } from 'node:stream';
 import { itemProblems, type BatchItem, type LineProblem } from './batch-format.ts';
 import { parseCsvRecords } from './csv.ts';
+import { utf8Lines } from './utf8-lines.ts';
 
 export type BatchEvent = { kind: 'item'; item: BatchItem } | { kind: 'problems'; problems: LineProblem[] };
 
@@ -16,32 +16,6 @@ export function formatOf(name: string, firstChar: string | undefined): 'jsonl' |
   if (/\.(jsonl|ndjson|json)$/i.test(name)) return 'jsonl';
   if (/\.csv$/i.test(name)) return 'csv';
   return firstChar === '{' ? 'jsonl' : 'csv';
-}
-
-/** Lines of a byte stream, decoded as strict UTF-8 (a bad byte is reported, not replaced). */
-async function* utf8Lines(input: Readable): AsyncGenerator<{ line: number; text: string } | { line: number; error: string }> {
-  const decoder = new TextDecoder('utf-8', { fatal: true });
-  let pending = '';
-  let line = 1;
-  let bad = false;
-  for await (const chunk of input) {
-    let text: string;
-    try {
-      text = decoder.decode(chunk as Buffer, { stream: true });
-    } catch {
-      yield { line: line + (pending.match(/\n/g)?.length ?? 0), error: 'is not valid UTF-8 — save the file as UTF-8 and import it again' };
-      bad = true;
-      break;
-    }
-    pending += text;
-    let at: number;
-    while ((at = pending.indexOf('\n')) >= 0) {
-      yield { line, text: pending.slice(0, at).replace(/\r$/, '') };
-      pending = pending.slice(at + 1);
-      line++;
-    }
-  }
-  if (!bad && pending.length) yield { line, text: pending.replace(/\r$/, '') };
 }
 
 const str = (v: unknown) => (typeof v === 'string' ? v : undefined);
@@ -203,4 +177,3 @@ export function openBatchInput(path: string): Readable {
   return path === '-' ? process.stdin : createReadStream(path);
 }
 
-export { createInterface };

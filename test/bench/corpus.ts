@@ -1,16 +1,9 @@
 import { cairnfieldItems } from '../../src/demo/cairnfield-items.ts';
 
-/** A small deterministic PRNG (mulberry32), so every run measures the same corpus. */
-export function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { seededRandom } from '../../src/stats/seeded-random.ts';
+
+/** The seeded generator, so every run measures the same corpus. */
+export const prng = seededRandom;
 
 const sentences = cairnfieldItems.flatMap((item) => item.responses.flatMap((r) => r.split(/(?<=[.!?])\s+/))).filter((s) => s.length > 10);
 
