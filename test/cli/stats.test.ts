@@ -68,3 +68,23 @@ describe('plumbline stats strengths', () => {
     expect(result.stderr).toMatch(/^plumbline: the comparisons are not strongly connected — .* add comparisons between these groups\n$/);
   });
 });
+
+describe('plumbline stats calibrate', () => {
+  it('reports on the demo batch\'s decided items', async () => {
+    const { openStore } = await import('../../src/store/connect.ts');
+    const { migrate } = await import('../../src/store/migrate.ts');
+    const { seedDemo, DEMO_BATCH_NAME } = await import('../../src/demo/seed.ts');
+    const db = join(dir, 'calibrate.db');
+    const store = await openStore({ kind: 'sqlite', file: db });
+    await migrate(store);
+    await seedDemo(store.db, { password: () => 'pw-cal-123' });
+    await store.close();
+    const result = runCli(['stats', 'calibrate', '--batch', DEMO_BATCH_NAME, '--json'], { env: { PLUMBLINE_DB: db } });
+    expect(result.code, result.stderr).toBe(0);
+    const out = JSON.parse(result.stdout);
+    expect(out.items).toBeGreaterThanOrEqual(5);
+    expect(out.suggestedOrder.value).toBeGreaterThan(0);
+    expect(Object.keys(out.criteria)).toContain('no-customer-data');
+    expect(out.positionBias.pairs).toBeGreaterThan(0);
+  });
+});

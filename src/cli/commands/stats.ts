@@ -4,6 +4,12 @@ import { bradleyTerry, winsFromPairs } from '../../stats/bradley-terry.ts';
 import { reliabilityReport, type Rating } from '../../stats/reliability-report.ts';
 import type { Estimate } from '../../stats/result.ts';
 import type { Command } from '../command.ts';
+import { configFromEnv } from '../../config.ts';
+import { calibrate } from '../../stats/calibration.ts';
+import { openStore } from '../../store/connect.ts';
+import { migrate } from '../../store/migrate.ts';
+import { findBatchByName } from '../../store/repos/batches.ts';
+import { loadCalibrationItems } from '../../store/repos/calibration-data.ts';
 
 const show = (e: Estimate) => (e.value === null ? `n/a (${e.reason})` : e.value.toFixed(4));
 const json = (e: Estimate) => (e.value === null ? null : Math.round(e.value * 1e6) / 1e6);
@@ -69,5 +75,45 @@ export const statsStrengthsCommand: Command = {
     io.out(`${rows.length} comparisons of ${names.length}; strengths scaled to a geometric mean of 1 (MM, ${result.iterations} sweeps${result.converged ? '' : ', not converged'})`);
     for (const r of ranked) io.out(`  ${r.name.padEnd(20)} ${r.strength.toFixed(4)}`);
     return 0;
+  },
+};
+
+/** `plumbline stats calibrate --batch NAME`: heuristics against final human rankings. */
+export const statsCalibrateCommand: Command = {
+  name: 'stats calibrate',
+  summary: 'how the suggested order and each criterion agree with final human rankings, and biases',
+  usage: 'plumbline stats calibrate --batch NAME [--json]',
+  options: { values: ['batch'], flags: ['json'] },
+  async run(args, io) {
+    const name = args.values.batch;
+    if (!name) throw new UsageError('plumbline stats calibrate: say which batch with --batch NAME');
+    const store = await openStore(configFromEnv(io.env).database);
+    try {
+      await migrate(store);
+      const batch = await findBatchByName(store.db, name);
+      if (!batch) throw new UserError(`there is no batch "${name}" — the Batches page lists them`);
+      const result = calibrate(await loadCalibrationItems(store.db, batch.id));
+      if (args.flags.has('json')) {
+        io.out(JSON.stringify(result, null, 2));
+        return 0;
+      }
+      if (!result.items) {
+        io.out(`${name}: no decided items yet — calibration compares the heuristics with final rankings`);
+        return 0;
+      }
+      const pct = (s: { value: number | null; pairs: number }) => (s.value === null ? 'n/a' : `${(s.value * 100).toFixed(1)}% of ${s.pairs} pairs`);
+      io.out(`${name}: ${result.items} decided items`);
+      io.out(`suggested order agrees with the final ranking on ${pct(result.suggestedOrder)}`);
+      io.out('each criterion alone (pairwise accuracy):');
+      for (const [id, share] of Object.entries(result.criteria)) io.out(`  ${id.padEnd(32)} ${pct(share)}`);
+      io.out(`length bias: the longer response won ${pct(result.lengthBias)} (50% is none)`);
+      io.out(`position bias: the response shown earlier was ranked better in ${pct(result.positionBias)} (50% is none)`);
+      io.out(`anchoring: ${result.anchoring.revisions} revisions after the reveal, ${result.anchoring.towardSuggested} toward the suggested order`);
+      io.out('reviewers\' agreement with the decisions (for calibration and coaching — small samples mislead):');
+      for (const [id, share] of Object.entries(result.reviewers)) io.out(`  ${id.padEnd(16)} ${share.value === null ? 'n/a' : `${(share.value * 100).toFixed(1)}%`} over ${share.pairs} items`);
+      return 0;
+    } finally {
+      await store.close();
+    }
   },
 };
