@@ -3,13 +3,14 @@ import { parseArgs } from './args.ts';
 import type { Command, CommandIo } from './command.ts';
 import { analyzeCommand } from './commands/analyze.ts';
 import { dbStatusCommand } from './commands/db-status.ts';
+import { importCommand } from './commands/import.ts';
 import { rubricCheckCommand, rubricDiffCommand, rubricTestCommand } from './commands/rubric.ts';
 import { scoreCommand } from './commands/score.ts';
 import { serveCommand } from './commands/serve.ts';
 import { statsAgreementCommand, statsCalibrateCommand, statsStrengthsCommand } from './commands/stats.ts';
 
 /** Every command, in the order `plumbline --help` lists them. */
-export const COMMANDS: Command[] = [serveCommand, dbStatusCommand, analyzeCommand, scoreCommand, rubricCheckCommand, rubricTestCommand, rubricDiffCommand, statsAgreementCommand, statsStrengthsCommand, statsCalibrateCommand];
+export const COMMANDS: Command[] = [serveCommand, dbStatusCommand, analyzeCommand, scoreCommand, importCommand, rubricCheckCommand, rubricTestCommand, rubricDiffCommand, statsAgreementCommand, statsStrengthsCommand, statsCalibrateCommand];
 
 export function helpText(): string {
   const width = Math.max(...COMMANDS.map((c) => c.name.length));

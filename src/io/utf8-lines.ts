@@ -11,7 +11,11 @@ export async function* utf8Lines(input: Readable): AsyncGenerator<{ line: number
     try {
       text = decoder.decode(chunk as Buffer, { stream: true });
     } catch {
-      yield { line: line + (pending.match(/\n/g)?.length ?? 0), error: 'is not valid UTF-8 — save the file as UTF-8 and import it again' };
+      const bytes = chunk as Buffer;
+      const invalidAt = firstInvalidByte(bytes);
+      let newlines = pending.match(/\n/g)?.length ?? 0;
+      for (let i = 0; i < invalidAt; i++) if (bytes[i] === 0x0a) newlines++;
+      yield { line: line + newlines, error: 'is not valid UTF-8 — save the file as UTF-8 and import it again' };
       bad = true;
       break;
     }
@@ -26,3 +30,24 @@ export async function* utf8Lines(input: Readable): AsyncGenerator<{ line: number
   if (!bad && pending.length) yield { line, text: pending.replace(/\r$/, '') };
 }
 
+
+/** Offset of the first byte that starts an invalid UTF-8 sequence (RFC 3629), or the length. */
+export function firstInvalidByte(bytes: Uint8Array): number {
+  const cont = (i: number, lo = 0x80, hi = 0xbf) => i < bytes.length && bytes[i] >= lo && bytes[i] <= hi;
+  let i = 0;
+  while (i < bytes.length) {
+    const b = bytes[i];
+    let size = 0;
+    if (b < 0x80) size = 1;
+    else if (b >= 0xc2 && b <= 0xdf) size = cont(i + 1) ? 2 : 0;
+    else if (b === 0xe0) size = cont(i + 1, 0xa0) && cont(i + 2) ? 3 : 0;
+    else if ((b >= 0xe1 && b <= 0xec) || b === 0xee || b === 0xef) size = cont(i + 1) && cont(i + 2) ? 3 : 0;
+    else if (b === 0xed) size = cont(i + 1, 0x80, 0x9f) && cont(i + 2) ? 3 : 0;
+    else if (b === 0xf0) size = cont(i + 1, 0x90) && cont(i + 2) && cont(i + 3) ? 4 : 0;
+    else if (b >= 0xf1 && b <= 0xf3) size = cont(i + 1) && cont(i + 2) && cont(i + 3) ? 4 : 0;
+    else if (b === 0xf4) size = cont(i + 1, 0x80, 0x8f) && cont(i + 2) && cont(i + 3) ? 4 : 0;
+    if (!size) return i;
+    i += size;
+  }
+  return bytes.length;
+}

@@ -112,3 +112,30 @@ describe('plumbline rubric diff', () => {
     expect(missing.stderr).toContain('there is no batch "nope"');
   });
 });
+
+describe('plumbline import', () => {
+  it('stores a batch scored with the rubric, then refuses the same file again', () => {
+    const db = join(dir, 'import.db');
+    const first = runCli(['import', jsonl, '--batch', 'cli batch', '--reviews', '2'], { env: { PLUMBLINE_DB: db } });
+    expect(first.code, first.stderr).toBe(0);
+    expect(first.stdout).toMatch(/^imported "cli batch": 2 prompts, 5 responses, scored with general [0-9a-f]{12}$/m);
+    const again = runCli(['import', jsonl, '--batch', 'other name'], { env: { PLUMBLINE_DB: db } });
+    expect(again.code).toBe(1);
+    expect(again.stderr).toContain('was already imported as batch "cli batch"');
+  });
+  it('lists every bad line and stores nothing', () => {
+    const db = join(dir, 'import-bad.db');
+    const bad = join(dir, 'import-bad.jsonl');
+    writeFileSync(bad, '{"prompt_id": "p", "prompt": "q", "responses": []}\nnot json\n');
+    const result = runCli(['import', bad, '--batch', 'x'], { env: { PLUMBLINE_DB: db } });
+    expect(result.code).toBe(1);
+    expect(result.stderr).toContain(`${bad}:1: responses: has 0 responses`);
+    expect(result.stderr).toContain(`${bad}:2: is not valid JSON`);
+    expect(result.stderr).toMatch(/2 problem\(s\) — nothing was imported/);
+  });
+  it('needs a batch name', () => {
+    const result = runCli(['import', jsonl]);
+    expect(result.code).toBe(2);
+    expect(result.stderr.trim()).toBe('plumbline: import: name the batch with --batch NAME');
+  });
+});

@@ -1,0 +1,119 @@
+import { createHash } from 'node:crypto';
+import { createReadStream, writeFileSync } from 'node:fs';
+import { UserError, errorCode } from '../errors.ts';
+import type { Rubric } from '../rubric/load.ts';
+import { scoreItem } from '../rubric/score.ts';
+import type { Store } from '../store/connect.ts';
+import { findBatchByName, findBatchBySource } from '../store/repos/batches.ts';
+import { recordAudit } from '../store/repos/audit.ts';
+import { ensureRubricVersion, storeItemScore } from '../store/repos/scores.ts';
+import { nowIso } from '../clock.ts';
+import type { LineProblem } from './batch-format.ts';
+import { readBatch } from './read-batch.ts';
+
+export interface ImportOptions {
+  path: string;
+  /** Shown in messages (the file's name as the user gave it). */
+  displayName?: string;
+  batchName: string;
+  rubric: Rubric;
+  reviews?: number;
+  /** Store the good items and write the bad lines' problems to this JSON Lines file. */
+  rejectsPath?: string;
+  createdBy?: number | null;
+  maxTextBytes?: number;
+  onProgress?: (items: number) => void;
+}
+
+export interface ImportResult {
+  batchId: number;
+  items: number;
+  responses: number;
+  rejected: number;
+}
+
+/** The import refused: every problem found, in file order. Nothing was stored. */
+export class ImportRefused extends UserError {
+  constructor(readonly problems: LineProblem[], readonly file: string) {
+    super(`${file}: ${problems.length} problem(s) — nothing was imported; fix the lines above, or import the good lines with --skip-invalid REJECTS.jsonl`);
+  }
+}
+
+async function validate(options: ImportOptions): Promise<{ hash: string; problems: LineProblem[]; items: number }> {
+  const hash = createHash('sha256');
+  const stream = createReadStream(options.path);
+  stream.on('data', (chunk) => hash.update(chunk));
+  const problems: LineProblem[] = [];
+  let items = 0;
+  try {
+    for await (const event of readBatch(stream, options.path, { maxTextBytes: options.maxTextBytes })) {
+      if (event.kind === 'problems') problems.push(...event.problems);
+      else items++;
+    }
+  } catch (error) {
+    const code = errorCode(error);
+    throw new UserError(code === 'ENOENT' ? `${options.displayName ?? options.path}: no such file — check the path` : `${options.displayName ?? options.path}: cannot read (${code ?? String(error)})`);
+  }
+  return { hash: hash.digest('hex'), problems, items };
+}
+
+/**
+ * Imports a batch file: every line is checked first; a file with any bad line is refused whole
+ * (`ImportRefused`, nothing stored) unless a rejects file is given, in which case the good items
+ * are stored and the problems written there. The same file imported twice (same bytes) is
+ * refused. Items are stored and scored in one transaction, so a failure part-way stores nothing.
+ */
+export async function importBatch(store: Store, options: ImportOptions): Promise<ImportResult> {
+  const name = options.displayName ?? options.path;
+  const { hash, problems, items } = await validate(options);
+  if (problems.length && !options.rejectsPath) throw new ImportRefused(problems, name);
+  if (!items) throw new UserError(`${name}: no valid items to import${problems.length ? ` (${problems.length} problem(s) written to ${options.rejectsPath})` : ' — the file holds no prompts'}`);
+  const earlier = await findBatchBySource(store.db, hash);
+  if (earlier) throw new UserError(`${name} was already imported as batch "${earlier.name}" on ${earlier.created_at.slice(0, 10)} — nothing new was stored`);
+  if (await findBatchByName(store.db, options.batchName)) throw new UserError(`a batch named "${options.batchName}" already exists — choose another name with --batch`);
+  if (options.rejectsPath) writeFileSync(options.rejectsPath, problems.map((p) => JSON.stringify({ line: p.line, field: p.field, reason: p.message })).join('\n') + (problems.length ? '\n' : ''));
+
+  const { rubric } = options;
+  return store.db.transaction().execute(async (trx) => {
+    await ensureRubricVersion(trx, rubric);
+    const createdAt = nowIso();
+    const { id: batchId } = await trx
+      .insertInto('batches')
+      .values({
+        name: options.batchName,
+        source_hash: hash,
+        source_name: name,
+        reviews_required: options.reviews ?? rubric.agreement.reviews,
+        blind_first: rubric.agreement.blindFirst ? 1 : 0,
+        consensus_rule: JSON.stringify({ kind: rubric.agreement.rule, threshold: rubric.agreement.threshold }),
+        rubric_id: rubric.id,
+        created_by: options.createdBy ?? null,
+        created_at: createdAt,
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    let stored = 0;
+    let responses = 0;
+    for await (const event of readBatch(createReadStream(options.path), options.path, { maxTextBytes: options.maxTextBytes })) {
+      if (event.kind !== 'item') continue;
+      const { item } = event;
+      const { id: itemId } = await trx
+        .insertInto('items')
+        .values({ batch_id: batchId, prompt_id: item.promptId, prompt: item.prompt, flag_reason: item.flag?.reason ?? null, flag_severity: item.flag?.severity ?? null, meta: item.meta ? JSON.stringify(item.meta) : null, state: 'open', priority: 0, created_at: createdAt })
+        .returning('id')
+        .executeTakeFirstOrThrow();
+      const rows = await trx
+        .insertInto('responses')
+        .values(item.responses.map((r, position) => ({ item_id: itemId, response_id: r.responseId, text: r.text, position })))
+        .returning(['id', 'response_id'])
+        .execute();
+      const scored = scoreItem(rubric, { prompt: item.prompt, responses: item.responses, flagSeverity: item.flag?.severity ?? null });
+      await storeItemScore(trx, itemId, scored, new Map(rows.map((r) => [r.response_id, r.id])));
+      stored++;
+      responses += item.responses.length;
+      options.onProgress?.(stored);
+    }
+    await recordAudit(trx, { actorId: options.createdBy ?? null, kind: 'import', subject: `batch:${batchId}`, detail: { name: options.batchName, items: stored, responses, rejected: problems.length, rubric: `${rubric.id}@${rubric.version}`, source: name } });
+    return { batchId, items: stored, responses, rejected: problems.length };
+  });
+}
