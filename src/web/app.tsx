@@ -12,6 +12,7 @@ import { authRoutes } from './routes/auth.tsx';
 import { batchRoutes } from './routes/batches.tsx';
 import { queueRoutes } from './routes/queue.tsx';
 import { rubricRoutes } from './routes/rubrics.tsx';
+import { statsRoutes } from './routes/stats.tsx';
 import { staticRoutes } from './routes/static-files.ts';
 
 export interface AppOptions {
@@ -45,6 +46,7 @@ export function createApp(options: AppOptions) {
   app.route('/', queueRoutes());
   app.route('/', batchRoutes());
   app.route('/', rubricRoutes());
+  app.route('/', statsRoutes());
 
   app.notFound((c) => renderError(c, new HttpError(404, 'There is no page at this address. Go back to the queue.')));
   app.onError((error, c) => renderError(c, error));

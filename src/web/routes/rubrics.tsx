@@ -75,6 +75,12 @@ export function rubricRoutes() {
     return c.html(<RubricEditorPage user={c.get('user')!} csrfToken={c.get('csrfToken')} rubricId={c.req.param('id')} source={source} problems={problems} version={rubric?.version} batches={await listBatches(c.get('store').db)} />);
   });
 
+  app.post('/rubrics/:id{[a-z0-9][a-z0-9-]*}/draft', requireRole('policy'), async (c) => {
+    const source = await formText(c, 'source');
+    const { problems, rubric } = loadRubric(source);
+    return c.html(<RubricEditorPage user={c.get('user')!} csrfToken={c.get('csrfToken')} rubricId={c.req.param('id')} source={source} problems={problems} version={rubric?.version} batches={await listBatches(c.get('store').db)} />);
+  });
+
   app.post('/rubrics/validate', requireRole('policy'), async (c) => {
     const { problems, rubric } = loadRubric(await formText(c, 'source'));
     return c.html(<ProblemList problems={problems} version={rubric?.version} />);
