@@ -7,10 +7,11 @@ import { importCommand } from './commands/import.ts';
 import { rubricCheckCommand, rubricDiffCommand, rubricTestCommand } from './commands/rubric.ts';
 import { scoreCommand } from './commands/score.ts';
 import { serveCommand } from './commands/serve.ts';
+import { userAddCommand, userDisableCommand, userListCommand, userResetPasswordCommand } from './commands/user.ts';
 import { statsAgreementCommand, statsCalibrateCommand, statsStrengthsCommand } from './commands/stats.ts';
 
 /** Every command, in the order `plumbline --help` lists them. */
-export const COMMANDS: Command[] = [serveCommand, dbStatusCommand, analyzeCommand, scoreCommand, importCommand, rubricCheckCommand, rubricTestCommand, rubricDiffCommand, statsAgreementCommand, statsStrengthsCommand, statsCalibrateCommand];
+export const COMMANDS: Command[] = [serveCommand, dbStatusCommand, analyzeCommand, scoreCommand, importCommand, rubricCheckCommand, rubricTestCommand, rubricDiffCommand, statsAgreementCommand, statsStrengthsCommand, statsCalibrateCommand, userAddCommand, userListCommand, userDisableCommand, userResetPasswordCommand];
 
 export function helpText(): string {
   const width = Math.max(...COMMANDS.map((c) => c.name.length));

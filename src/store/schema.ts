@@ -19,6 +19,7 @@ export interface Database {
   api_tokens: ApiTokenTable;
   audit_events: AuditEventTable;
   settings: SettingTable;
+  login_failures: LoginFailureTable;
 }
 
 export interface BatchTable {
@@ -171,6 +172,13 @@ export interface AuditEventTable {
   subject: string | null;
   /** JSON object. */
   detail: string | null;
+}
+
+export interface LoginFailureTable {
+  id: Generated<number>;
+  at: string;
+  username: string;
+  address: string;
 }
 
 export interface SettingTable {

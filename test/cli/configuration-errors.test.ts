@@ -82,6 +82,6 @@ describe('command line usage', () => {
     const before = runCli(['db', 'status'], { env: { PLUMBLINE_DB: db } });
     expect(before.code).toBe(0);
     expect(before.stdout).toMatch(/pending\s+0001-core/);
-    expect(before.stdout).toMatch(/2 pending/);
+    expect(before.stdout).toMatch(/3 pending/);
   });
 });

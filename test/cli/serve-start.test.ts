@@ -43,7 +43,7 @@ describe('npm start (plumbline serve) on a fresh folder', () => {
       await stop(second.child);
     }
     const status = runCli(['db', 'status'], { cwd });
-    expect(status.stdout).toMatch(/applied\s+0002-review-workflow/);
+    expect(status.stdout).toMatch(/applied\s+0003-login-failures/);
     expect(status.stdout).toContain('Up to date.');
   });
 });

@@ -26,9 +26,9 @@ for (const factory of storeFactories()) {
       const store = await factory.open();
       await migrate(store);
       const status = await migrationStatus(store);
-      expect(status.map((m) => m.name)).toEqual(['0001-core', '0002-review-workflow']);
+      expect(status.map((m) => m.name)).toEqual(['0001-core', '0002-review-workflow', '0003-login-failures']);
       expect(status.every((m) => m.executedAt !== null)).toBe(true);
-      expect(latestMigration).toBe('0002-review-workflow');
+      expect(latestMigration).toBe('0003-login-failures');
       // a second run is a no-op
       expect(await migrate(store)).toEqual([]);
       await store.close();
@@ -37,7 +37,7 @@ for (const factory of storeFactories()) {
     it('upgrades a database built at the older migration in place, keeping its rows', async () => {
       const store = await factory.open();
       await migrate(store, '0001-core');
-      expect((await migrationStatus(store)).map((m) => Boolean(m.executedAt))).toEqual([true, false]);
+      expect((await migrationStatus(store)).map((m) => Boolean(m.executedAt))).toEqual([true, false, false]);
       const userId = await createUser(store.db, { username: 'old', displayName: 'Old User', password: 'pw-old-1', roles: ['reviewer'] });
       await storeBatch(store.db, batch('old-batch', 'hash-old', twoItems));
       await migrate(store);

@@ -1,6 +1,7 @@
 import type { Migration, MigrationProvider } from 'kysely';
 import * as core from './0001-core.ts';
 import * as reviewWorkflow from './0002-review-workflow.ts';
+import * as loginFailures from './0003-login-failures.ts';
 
 /**
  * Every migration, in order. Names sort by their number; add a new file
@@ -9,6 +10,7 @@ import * as reviewWorkflow from './0002-review-workflow.ts';
 export const migrations: Record<string, Migration> = {
   '0001-core': core,
   '0002-review-workflow': reviewWorkflow,
+  '0003-login-failures': loginFailures,
 };
 
 /** Kysely reads migrations through a provider; ours is the static list above. */
