@@ -8,6 +8,7 @@ import type { AppEnv } from './context.ts';
 import { csrfProtection } from './middleware/csrf.ts';
 import { securityHeaders } from './middleware/security-headers.ts';
 import { sessionLoader } from './middleware/session.ts';
+import { adminRoutes } from './routes/admin.tsx';
 import { authRoutes } from './routes/auth.tsx';
 import { batchRoutes } from './routes/batches.tsx';
 import { queueRoutes } from './routes/queue.tsx';
@@ -47,6 +48,7 @@ export function createApp(options: AppOptions) {
   app.route('/', batchRoutes());
   app.route('/', rubricRoutes());
   app.route('/', statsRoutes());
+  app.route('/', adminRoutes());
 
   app.notFound((c) => renderError(c, new HttpError(404, 'There is no page at this address. Go back to the queue.')));
   app.onError((error, c) => renderError(c, error));

@@ -1,0 +1,64 @@
+/** @jsxImportSource hono/jsx */
+import { Hono } from 'hono';
+import { stream } from 'hono/streaming';
+import type { Kysely } from 'kysely';
+import { recordAudit } from '../../store/repos/audit.ts';
+import type { Database } from '../../store/schema.ts';
+import { AuditPage } from '../../../views/audit-page.tsx';
+import type { AppEnv } from '../context.ts';
+import { requireRole } from '../middleware/require-role.ts';
+
+export interface AuditFilter {
+  kind?: string;
+  actor?: string;
+  since?: string;
+}
+
+function auditQuery(db: Kysely<Database>, filter: AuditFilter) {
+  let q = db
+    .selectFrom('audit_events')
+    .leftJoin('users', 'users.id', 'audit_events.actor_id')
+    .select(['audit_events.id', 'audit_events.at', 'audit_events.kind', 'audit_events.subject', 'audit_events.detail', 'users.username as actor']);
+  if (filter.kind) q = q.where('audit_events.kind', '=', filter.kind);
+  if (filter.actor) q = q.where('users.username', '=', filter.actor);
+  if (filter.since) q = q.where('audit_events.at', '>=', filter.since);
+  return q;
+}
+
+function filterFrom(query: (name: string) => string | undefined): AuditFilter {
+  const clean = (v: string | undefined) => (v && v.trim() ? v.trim().slice(0, 100) : undefined);
+  const since = clean(query('since'));
+  return { kind: clean(query('kind')), actor: clean(query('actor')), since: since && /^\d{4}-\d{2}-\d{2}/.test(since) ? since : undefined };
+}
+
+/** The admin's audit view: filter the append-only log, export it as JSON Lines. */
+export function adminRoutes() {
+  const app = new Hono<AppEnv>();
+
+  app.get('/admin/audit', requireRole('admin'), async (c) => {
+    const { db } = c.get('store');
+    const filter = filterFrom((n) => c.req.query(n));
+    const events = await auditQuery(db, filter).orderBy('audit_events.id', 'desc').limit(300).execute();
+    const kinds = (await db.selectFrom('audit_events').select('kind').distinct().orderBy('kind').execute()).map((k) => k.kind);
+    return c.html(<AuditPage user={c.get('user')!} csrfToken={c.get('csrfToken')} events={events} kinds={kinds} filter={filter} />);
+  });
+
+  app.get('/admin/audit.jsonl', requireRole('admin'), async (c) => {
+    const { db } = c.get('store');
+    const filter = filterFrom((n) => c.req.query(n));
+    await recordAudit(db, { actorId: c.get('user')!.id, kind: 'audit_export', detail: { ...filter } });
+    c.header('Content-Type', 'application/x-ndjson; charset=utf-8');
+    c.header('Content-Disposition', 'attachment; filename="plumbline-audit.jsonl"');
+    return stream(c, async (out) => {
+      let after = 0;
+      for (;;) {
+        const page = await auditQuery(db, filter).where('audit_events.id', '>', after).orderBy('audit_events.id', 'asc').limit(1000).execute();
+        if (!page.length) break;
+        await out.write(page.map((e) => JSON.stringify({ id: e.id, at: e.at, actor: e.actor, kind: e.kind, subject: e.subject, detail: e.detail ? JSON.parse(e.detail) : null })).join('\n') + '\n');
+        after = page[page.length - 1].id;
+      }
+    });
+  });
+
+  return app;
+}
