@@ -9,6 +9,8 @@ import { csrfProtection } from './middleware/csrf.ts';
 import { securityHeaders } from './middleware/security-headers.ts';
 import { sessionLoader } from './middleware/session.ts';
 import { adminRoutes } from './routes/admin.tsx';
+import { apiRoutes } from './routes/api.ts';
+import type { RateLimit } from './middleware/api-token.ts';
 import { authRoutes } from './routes/auth.tsx';
 import { batchRoutes } from './routes/batches.tsx';
 import { queueRoutes } from './routes/queue.tsx';
@@ -21,6 +23,8 @@ export interface AppOptions {
   secureCookies?: boolean;
   /** Largest request body accepted, in bytes. */
   maxBodyBytes?: number;
+  /** Requests an API token may make per window. */
+  apiRateLimit?: RateLimit;
 }
 
 /**
@@ -49,6 +53,7 @@ export function createApp(options: AppOptions) {
   app.route('/', rubricRoutes());
   app.route('/', statsRoutes());
   app.route('/', adminRoutes());
+  app.route('/', apiRoutes({ rateLimit: options.apiRateLimit }));
 
   app.notFound((c) => renderError(c, new HttpError(404, 'There is no page at this address. Go back to the queue.')));
   app.onError((error, c) => renderError(c, error));

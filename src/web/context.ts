@@ -18,5 +18,7 @@ export interface AppEnv {
     /** Token the page embeds for forms and htmx requests. */
     csrfToken: string;
     secureCookies: boolean;
+    /** Set by requireToken on API routes. */
+    apiToken?: { id: number; name: string; scopes: string[]; createdBy: number | null };
   };
 }

@@ -39,6 +39,8 @@ const routes: Route[] = [
   { method: 'GET', path: () => `/stats?batch=${batchId}`, allowed: READERS },
   { method: 'GET', path: () => '/admin/audit', allowed: ['admin'] },
   { method: 'GET', path: () => '/admin/audit.jsonl', allowed: ['admin'] },
+  { method: 'GET', path: () => '/admin/tokens', allowed: ['admin'] },
+  { method: 'POST', path: () => '/admin/tokens', allowed: ['admin'], body: () => ({ name: 'role test', scopes: 'export' }) },
   { method: 'POST', path: () => '/rubrics/validate', allowed: ['policy'], body: () => ({ source: rubricSource }) },
   { method: 'POST', path: () => '/rubrics/cairnfield-support/preview', allowed: ['policy'], body: () => ({ source: rubricSource, batch: String(batchId) }) },
   { method: 'POST', path: () => '/rubrics/cairnfield-support/draft', allowed: ['policy'], body: () => ({ source: rubricSource }) },
@@ -47,8 +49,8 @@ const routes: Route[] = [
 ];
 
 async function changeCounts() {
-  const n = async (table: 'rubric_versions' | 'sessions' | 'users' | 'batches') => Number((await store.db.selectFrom(table).select(sql<number>`count(*)`.as('n')).executeTakeFirstOrThrow()).n);
-  return { rubric_versions: await n('rubric_versions'), users: await n('users'), batches: await n('batches') };
+  const n = async (table: 'rubric_versions' | 'sessions' | 'users' | 'batches' | 'api_tokens') => Number((await store.db.selectFrom(table).select(sql<number>`count(*)`.as('n')).executeTakeFirstOrThrow()).n);
+  return { rubric_versions: await n('rubric_versions'), users: await n('users'), batches: await n('batches'), api_tokens: await n('api_tokens') };
 }
 
 function request(route: Route, who: (typeof USERS)[number] | null) {
@@ -66,7 +68,7 @@ describe('every route × every role', () => {
       it(`${route.method} ${route.path.toString().replace(/^\(\) => /, '').replace(/[`']/g, '')} as ${who ?? 'a visitor'} → ${allowed ? 'allowed' : who ? '403' : 'sign in or 403'}`, async () => {
         const before = await changeCounts();
         const res = await request(route, who);
-        if (allowed) expect([200, 303], await res.clone().text().then((t) => t.slice(0, 200))).toContain(res.status);
+        if (allowed) expect([200, 201, 303], await res.clone().text().then((t) => t.slice(0, 200))).toContain(res.status);
         else if (who) {
           expect(res.status).toBe(403);
           expect(await changeCounts()).toEqual(before);

@@ -5,6 +5,8 @@ import type { Kysely } from 'kysely';
 import { recordAudit } from '../../store/repos/audit.ts';
 import type { Database } from '../../store/schema.ts';
 import { AuditPage } from '../../../views/audit-page.tsx';
+import { TokensPage } from '../../../views/tokens-page.tsx';
+import { createApiToken, listApiTokens, revokeApiToken, TOKEN_SCOPES, type TokenScope } from '../../store/repos/api-tokens.ts';
 import type { AppEnv } from '../context.ts';
 import { requireRole } from '../middleware/require-role.ts';
 
@@ -31,7 +33,7 @@ function filterFrom(query: (name: string) => string | undefined): AuditFilter {
   return { kind: clean(query('kind')), actor: clean(query('actor')), since: since && /^\d{4}-\d{2}-\d{2}/.test(since) ? since : undefined };
 }
 
-/** The admin's audit view: filter the append-only log, export it as JSON Lines. */
+/** Admin pages: the audit log (filter, export as JSON Lines) and API tokens (create, revoke). */
 export function adminRoutes() {
   const app = new Hono<AppEnv>();
 
@@ -58,6 +60,28 @@ export function adminRoutes() {
         after = page[page.length - 1].id;
       }
     });
+  });
+
+  app.get('/admin/tokens', requireRole('admin'), async (c) => {
+    return c.html(<TokensPage user={c.get('user')!} csrfToken={c.get('csrfToken')} tokens={await listApiTokens(c.get('store').db)} />);
+  });
+
+  app.post('/admin/tokens', requireRole('admin'), async (c) => {
+    const { db } = c.get('store');
+    const body = await c.req.parseBody({ all: true });
+    const name = typeof body.name === 'string' ? body.name.trim().slice(0, 80) : '';
+    const asked = ([] as unknown[]).concat(body.scopes ?? []).filter((s): s is string => typeof s === 'string');
+    const scopes = asked.filter((s): s is TokenScope => (TOKEN_SCOPES as readonly string[]).includes(s));
+    if (!name || !scopes.length) {
+      return c.html(<TokensPage user={c.get('user')!} csrfToken={c.get('csrfToken')} tokens={await listApiTokens(db)} error="Give the token a name and at least one scope." />, 422);
+    }
+    const created = await createApiToken(db, { name, scopes, createdBy: c.get('user')!.id });
+    return c.html(<TokensPage user={c.get('user')!} csrfToken={c.get('csrfToken')} tokens={await listApiTokens(db)} created={{ name, token: created.token }} />, 201);
+  });
+
+  app.post('/admin/tokens/:id{[0-9]+}/revoke', requireRole('admin'), async (c) => {
+    await revokeApiToken(c.get('store').db, Number(c.req.param('id')), c.get('user')!.id);
+    return c.redirect('/admin/tokens', 303);
   });
 
   return app;
