@@ -13,6 +13,7 @@ export function BarChart(props: { title: string; description: string; bars: { la
   const pct = (v: number | null) => (v === null ? 'n/a' : `${(v * 100).toFixed(1)}%`);
   return (
     <figure class="chart">
+      <figcaption>{props.title}</figcaption>
       <svg role="img" aria-labelledby={`${id}-title ${id}-desc`} viewBox={`0 0 ${labelWidth + barWidth + 70} ${height}`} width="100%" height={height}>
         <title id={`${id}-title`}>{props.title}</title>
         <desc id={`${id}-desc`}>{`${props.description} ${props.bars.map((b) => `${b.label}: ${pct(b.value)}`).join('; ')}.`}</desc>
@@ -30,7 +31,6 @@ export function BarChart(props: { title: string; description: string; bars: { la
           </g>
         )}
       </svg>
-      <figcaption>{props.title}</figcaption>
       <table class="chart-numbers">
         <caption>{`${props.title} — the numbers`}</caption>
         <thead><tr><th scope="col">Measure</th><th scope="col">Value</th><th scope="col">Note</th></tr></thead>

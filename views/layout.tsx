@@ -32,6 +32,7 @@ export function Layout({ title, user, csrfToken, children }: LayoutProps) {
         <meta name="htmx-config" content={HTMX_CONFIG} />
         <meta name="csrf-token" content={csrfToken} />
         <title>{`${title} · Plumbline`}</title>
+        <link rel="icon" href="/static/favicon.svg" type="image/svg+xml" />
         <link rel="stylesheet" href="/static/plumbline.css" />
         <script src="/static/htmx.min.js" defer></script>
         <script src="/static/plumbline.js" defer></script>

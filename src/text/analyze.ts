@@ -47,6 +47,8 @@ export interface Sentence {
  */
 export interface MatchWord {
   norm: string;
+  /** The first two characters of `norm`, for prefix phrases. */
+  head: string;
   start: number;
   end: number;
   firstToken: number;
@@ -213,7 +215,8 @@ function matchWords(text: string, tokens: Token[]): MatchWord[] {
     const trail = raw.slice(lead).match(EDGE_END)?.[0].length ?? 0;
     if (lead + trail >= raw.length) return;
     const core = raw.slice(lead, raw.length - trail);
-    words.push({ norm: core.toLowerCase().replace(/’/g, "'"), start: tokens[first].start + lead, end: tokens[last].end - trail, firstToken: first, lastToken: last, sentence: tokens[first].sentence });
+    const norm = core.toLowerCase().replace(/’/g, "'");
+    words.push({ norm, head: norm.slice(0, 2), start: tokens[first].start + lead, end: tokens[last].end - trail, firstToken: first, lastToken: last, sentence: tokens[first].sentence });
   };
   for (let i = 0; i < tokens.length; i++) {
     const t = tokens[i];

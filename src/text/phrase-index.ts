@@ -6,6 +6,8 @@ interface Entry {
   prefixLast: boolean;
 }
 
+const NONE: readonly never[] = [];
+
 const PUNCTUATION_EDGES = /^[\s"“”‘(\[{.,;:!?]+|[\s"“”’)\]}.,;:!?]+$/g;
 
 /** Normalises a word for matching: lower case, straight apostrophes, no punctuation at its edges. */
@@ -58,14 +60,18 @@ export class PhraseIndex {
     const cached = whole ? this.cache.get(words) : undefined;
     if (cached) return cached;
     const out: [number, number][] = [];
+    const prefixes = this.prefixFirst.size > 0;
     for (let i = from; i < to; i++) {
       const w = words[i];
       let best = -1;
-      for (const entry of this.byFirst.get(w.norm) ?? []) {
-        const last = this.matchAt(words, i, to, entry);
-        if (last > best) best = last;
+      const entries = this.byFirst.get(w.norm);
+      if (entries) {
+        for (const entry of entries) {
+          const last = this.matchAt(words, i, to, entry);
+          if (last > best) best = last;
+        }
       }
-      if (best < i) for (const p of this.prefixFirst.get(w.norm.slice(0, 2)) ?? []) if (w.norm.startsWith(p.prefix)) best = i;
+      if (best < i && prefixes) for (const p of this.prefixFirst.get(w.head) ?? NONE) if (w.norm.startsWith(p.prefix)) best = i;
       if (best >= i) {
         out.push([i, best]);
         i = best;
