@@ -4,6 +4,7 @@ import type { Command, CommandIo } from './command.ts';
 import { analyzeCommand } from './commands/analyze.ts';
 import { dbStatusCommand } from './commands/db-status.ts';
 import { importCommand } from './commands/import.ts';
+import { exportCommand } from './commands/export.ts';
 import { rubricCheckCommand, rubricDiffCommand, rubricTestCommand } from './commands/rubric.ts';
 import { scoreCommand } from './commands/score.ts';
 import { serveCommand } from './commands/serve.ts';
@@ -11,7 +12,7 @@ import { userAddCommand, userDisableCommand, userListCommand, userResetPasswordC
 import { statsAgreementCommand, statsCalibrateCommand, statsStrengthsCommand } from './commands/stats.ts';
 
 /** Every command, in the order `plumbline --help` lists them. */
-export const COMMANDS: Command[] = [serveCommand, dbStatusCommand, analyzeCommand, scoreCommand, importCommand, rubricCheckCommand, rubricTestCommand, rubricDiffCommand, statsAgreementCommand, statsStrengthsCommand, statsCalibrateCommand, userAddCommand, userListCommand, userDisableCommand, userResetPasswordCommand];
+export const COMMANDS: Command[] = [serveCommand, dbStatusCommand, analyzeCommand, scoreCommand, importCommand, exportCommand, rubricCheckCommand, rubricTestCommand, rubricDiffCommand, statsAgreementCommand, statsStrengthsCommand, statsCalibrateCommand, userAddCommand, userListCommand, userDisableCommand, userResetPasswordCommand];
 
 export function helpText(): string {
   const width = Math.max(...COMMANDS.map((c) => c.name.length));
