@@ -54,6 +54,7 @@ export function QueuePage(props: { user: SessionUser; csrfToken: string; rows: Q
   return (
     <Layout title="Queue" user={props.user} csrfToken={props.csrfToken}>
       <h1>Review queue</h1>
+      {props.user.roles.includes('reviewer') && <p><a class="button" href="/review/next">Review the next item</a></p>}
       <ul class="counts" aria-label="Items by state">
         <li><strong>{counts.open}</strong> waiting</li>
         <li><strong>{counts.in_review}</strong> partly reviewed</li>

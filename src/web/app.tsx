@@ -14,6 +14,7 @@ import type { RateLimit } from './middleware/api-token.ts';
 import { authRoutes } from './routes/auth.tsx';
 import { batchRoutes } from './routes/batches.tsx';
 import { queueRoutes } from './routes/queue.tsx';
+import { reviewRoutes } from './routes/review.tsx';
 import { rubricRoutes } from './routes/rubrics.tsx';
 import { statsRoutes } from './routes/stats.tsx';
 import { staticRoutes } from './routes/static-files.ts';
@@ -50,6 +51,7 @@ export function createApp(options: AppOptions) {
   app.route('/', authRoutes());
   app.route('/', queueRoutes());
   app.route('/', batchRoutes());
+  app.route('/', reviewRoutes());
   app.route('/', rubricRoutes());
   app.route('/', statsRoutes());
   app.route('/', adminRoutes());
