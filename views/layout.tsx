@@ -45,6 +45,7 @@ export function Layout({ title, user, csrfToken, children }: LayoutProps) {
             <nav aria-label="Main">
               <ul>
                 {hasAnyRole(user.roles, ['reviewer', 'adjudicator', 'policy', 'data', 'admin']) && <li><a href="/">Queue</a></li>}
+                {hasAnyRole(user.roles, ['adjudicator']) && <li><a href="/adjudicate">Adjudication</a></li>}
                 {hasAnyRole(user.roles, ['data', 'admin']) && <li><a href="/batches">Batches</a></li>}
                 {hasAnyRole(user.roles, ['policy', 'admin', 'data', 'adjudicator']) && <li><a href="/rubrics">Rubrics</a></li>}
                 {hasAnyRole(user.roles, ['policy', 'admin', 'data', 'adjudicator']) && <li><a href="/stats">Statistics</a></li>}

@@ -9,6 +9,7 @@ import { csrfProtection } from './middleware/csrf.ts';
 import { securityHeaders } from './middleware/security-headers.ts';
 import { sessionLoader } from './middleware/session.ts';
 import { adminRoutes } from './routes/admin.tsx';
+import { adjudicationRoutes } from './routes/adjudication.tsx';
 import { apiRoutes } from './routes/api.ts';
 import type { RateLimit } from './middleware/api-token.ts';
 import { authRoutes } from './routes/auth.tsx';
@@ -52,6 +53,7 @@ export function createApp(options: AppOptions) {
   app.route('/', queueRoutes());
   app.route('/', batchRoutes());
   app.route('/', reviewRoutes());
+  app.route('/', adjudicationRoutes());
   app.route('/', rubricRoutes());
   app.route('/', statsRoutes());
   app.route('/', adminRoutes());

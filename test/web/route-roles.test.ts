@@ -34,6 +34,7 @@ const routes: Route[] = [
   { method: 'GET', path: () => `/items/${itemId}`, allowed: ALL },
   { method: 'GET', path: () => '/batches', allowed: ['policy', 'data', 'admin'] },
   { method: 'GET', path: () => '/review/next', allowed: ['reviewer', 'adjudicator'] },
+  { method: 'GET', path: () => '/adjudicate', allowed: ['adjudicator'] },
   { method: 'GET', path: () => '/rubrics', allowed: READERS },
   { method: 'GET', path: () => '/rubrics/cairnfield-support', allowed: READERS },
   { method: 'GET', path: () => '/rubrics/cairnfield-support/edit', allowed: ['policy'] },
