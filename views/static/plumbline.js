@@ -30,3 +30,43 @@ document.addEventListener('keydown', (event) => {
     showMasked(span);
   }
 });
+
+// Ranking by drag: dragging a candidate above or below another reorders the list and renumbers
+// the ranks 1…K in the new order. Ranks stay editable (digits, arrow keys) in the number fields.
+function renumber(list) {
+  list.querySelectorAll('li.candidate').forEach((li, i) => {
+    const input = li.querySelector('input.rank');
+    if (input) input.value = String(i + 1);
+  });
+}
+function enableDrag(list) {
+  let dragged = null;
+  list.querySelectorAll('li.candidate').forEach((li) => {
+    li.setAttribute('draggable', 'true');
+    li.addEventListener('dragstart', (event) => {
+      dragged = li;
+      li.classList.add('dragging');
+      event.dataTransfer.effectAllowed = 'move';
+      event.dataTransfer.setData('text/plain', li.dataset.response || '');
+    });
+    li.addEventListener('dragend', () => {
+      li.classList.remove('dragging');
+      dragged = null;
+    });
+    li.addEventListener('dragover', (event) => {
+      if (!dragged || dragged === li) return;
+      event.preventDefault();
+      const box = li.getBoundingClientRect();
+      const before = event.clientY < box.top + box.height / 2;
+      list.insertBefore(dragged, before ? li : li.nextSibling);
+    });
+    li.addEventListener('drop', (event) => {
+      event.preventDefault();
+      renumber(list);
+    });
+  });
+}
+document.addEventListener('DOMContentLoaded', () => {
+  const list = document.querySelector('form.ranking-form ol.candidates');
+  if (list) enableDrag(list);
+});
