@@ -50,13 +50,15 @@ export function ReviewPage(props: {
   warning: string | null;
   error?: string;
   minRationale: number;
+  reviewedToday: number;
+  dailyLimit: number;
 }) {
   const { candidates, revealed } = props;
   const k = candidates.length;
   const order = candidates.map((c) => c.responseId).join(',');
   return (
     <Layout title={`Review ${props.promptId}`} user={props.user} csrfToken={props.csrfToken}>
-      <p class="muted">{`Item ${props.promptId}${props.flag ? ` · flagged: ${props.flag}` : ''}`}</p>
+      <p class="muted">{`Item ${props.promptId}${props.flag ? ` · flagged: ${props.flag}` : ''} · you have reviewed ${props.reviewedToday} today (suggested limit ${props.dailyLimit})`}</p>
       {props.warning && <div class="content-warning" role="note">{`Content warning: ${props.warning}. Hidden passages stay hidden until you choose to show them; you may skip this item without penalty.`}</div>}
       {props.error && <div class="error-box" role="alert">{props.error}</div>}
       <h1>Prompt</h1>

@@ -109,3 +109,22 @@ describe('reviewing an item: blind first, then reveal, revise and submit', () =>
     expect(await res.text()).toContain('You do not hold this item');
   });
 });
+
+describe('exposure', () => {
+  it('suggests a break at the soft daily limit, and lets the reviewer go on', async () => {
+    const previous = process.env.PLUMBLINE_DAILY_LIMIT;
+    process.env.PLUMBLINE_DAILY_LIMIT = '1';
+    try {
+      const reviewer = await signIn(app, 'reviewer');
+      const res = await app.request('/review/next', { headers: { cookie: reviewer.cookie } });
+      expect(res.status).toBe(200);
+      expect(await res.text()).toMatch(/You have reviewed \d+ items today; the suggested limit is 1/);
+      const goOn = await app.request('/review/next?continue=1', { headers: { cookie: reviewer.cookie } });
+      expect([303, 200]).toContain(goOn.status);
+      expect(await goOn.text()).not.toContain('Time for a break?');
+    } finally {
+      if (previous === undefined) delete process.env.PLUMBLINE_DAILY_LIMIT;
+      else process.env.PLUMBLINE_DAILY_LIMIT = previous;
+    }
+  });
+});

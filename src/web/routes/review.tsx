@@ -9,6 +9,8 @@ import { recordAudit } from '../../store/repos/audit.ts';
 import type { Ranks } from '../../stats/pairwise-agreement.ts';
 import { ReviewPage, type ReviewCandidate } from '../../../views/review-page.tsx';
 import { NothingWaitingPage } from '../../../views/nothing-waiting-page.tsx';
+import { BreakPage } from '../../../views/break-page.tsx';
+import { dailySoftLimit, reviewedToday } from '../../review/exposure.ts';
 import type { AppEnv } from '../context.ts';
 import { requireRole } from '../middleware/require-role.ts';
 
@@ -33,7 +35,7 @@ async function loadForReview(c: Ctx, itemId: number) {
   });
   const critical = candidates.some((cand) => cand.score?.findings.some((f) => f.severity === 'critical'));
   const warning = critical ? 'some candidates hold passages a rubric marks as critical (unsafe advice or personal data)' : item.flag_severity === 'high' || item.flag_severity === 'critical' ? `flagged ${item.flag_severity}: ${item.flag_reason ?? ''}` : null;
-  return { item, candidates, warning, order };
+  return { item, candidates, warning, order, reviewedToday: await reviewedToday(db, user.id) };
 }
 
 function ranksFrom(body: Record<string, unknown>, ids: string[]): Ranks {
@@ -42,7 +44,7 @@ function ranksFrom(body: Record<string, unknown>, ids: string[]): Ranks {
 
 function page(c: Ctx, data: Awaited<ReturnType<typeof loadForReview>>, extra: { revealed: boolean; firstRanking: Ranks | null; startedAt: string; error?: string }, status: 200 | 409 | 422 = 200) {
   return c.html(
-    <ReviewPage user={c.get('user')!} csrfToken={c.get('csrfToken')} itemId={data.item.id} promptId={data.item.prompt_id} prompt={data.item.prompt} flag={data.item.flag_reason} candidates={data.candidates} warning={data.warning} minRationale={DEFAULT_MIN_RATIONALE} {...extra} />,
+    <ReviewPage user={c.get('user')!} csrfToken={c.get('csrfToken')} reviewedToday={data.reviewedToday} dailyLimit={dailySoftLimit()} itemId={data.item.id} promptId={data.item.prompt_id} prompt={data.item.prompt} flag={data.item.flag_reason} candidates={data.candidates} warning={data.warning} minRationale={DEFAULT_MIN_RATIONALE} {...extra} />,
     status,
   );
 }
@@ -53,6 +55,9 @@ export function reviewRoutes() {
   const reviewer = requireRole('reviewer');
 
   app.get('/review/next', reviewer, async (c) => {
+    const limit = dailySoftLimit();
+    const today = await reviewedToday(c.get('store').db, c.get('user')!.id);
+    if (today >= limit && c.req.query('continue') !== '1') return c.html(<BreakPage user={c.get('user')!} csrfToken={c.get('csrfToken')} today={today} limit={limit} />);
     const next = await claimNext(c.get('store'), c.get('user')!.id);
     if (!next) return c.html(<NothingWaitingPage user={c.get('user')!} csrfToken={c.get('csrfToken')} />);
     return c.redirect(`/review/${next.itemId}`, 303);
