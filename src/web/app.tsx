@@ -14,6 +14,7 @@ import { apiRoutes } from './routes/api.ts';
 import type { RateLimit } from './middleware/api-token.ts';
 import { authRoutes } from './routes/auth.tsx';
 import { batchRoutes } from './routes/batches.tsx';
+import { batchIoRoutes } from './routes/batch-io.tsx';
 import { queueRoutes } from './routes/queue.tsx';
 import { reviewRoutes } from './routes/review.tsx';
 import { rubricRoutes } from './routes/rubrics.tsx';
@@ -52,6 +53,7 @@ export function createApp(options: AppOptions) {
   app.route('/', authRoutes());
   app.route('/', queueRoutes());
   app.route('/', batchRoutes());
+  app.route('/', batchIoRoutes());
   app.route('/', reviewRoutes());
   app.route('/', adjudicationRoutes());
   app.route('/', rubricRoutes());

@@ -35,6 +35,7 @@ const routes: Route[] = [
   { method: 'GET', path: () => '/batches', allowed: ['policy', 'data', 'admin'] },
   { method: 'GET', path: () => '/review/next', allowed: ['reviewer', 'adjudicator'] },
   { method: 'GET', path: () => '/adjudicate', allowed: ['adjudicator'] },
+  { method: 'GET', path: () => '/export?format=rankings', allowed: ['data', 'admin'] },
   { method: 'GET', path: () => '/rubrics', allowed: READERS },
   { method: 'GET', path: () => '/rubrics/cairnfield-support', allowed: READERS },
   { method: 'GET', path: () => '/rubrics/cairnfield-support/edit', allowed: ['policy'] },
