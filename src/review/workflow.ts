@@ -47,23 +47,32 @@ export async function claimNext(store: Store, userId: number, options: { batchId
     await trx.deleteFrom('work_claims').where('expires_at', '<=', nowIso).execute();
     const own = await trx.selectFrom('work_claims').innerJoin('items', 'items.id', 'work_claims.item_id').select(['work_claims.item_id', 'work_claims.expires_at']).where('work_claims.user_id', '=', userId).where('items.state', 'in', OPEN).executeTakeFirst();
     if (own) return { itemId: own.item_id, expiresAt: own.expires_at };
-    let query = trx
-      .selectFrom('items')
-      .select('items.id')
-      .where('items.state', 'in', OPEN)
-      .where(({ not, exists, selectFrom }) => not(exists(selectFrom('reviews').select('reviews.id').whereRef('reviews.item_id', '=', 'items.id').where('reviews.reviewer_id', '=', userId))))
-      .where(
-        sql<number>`(select count(*) from reviews where reviews.item_id = items.id and reviews.status = 'submitted') + (select count(*) from work_claims where work_claims.item_id = items.id)`,
-        '<',
-        sql<number>`(select reviews_required from batches where batches.id = items.batch_id)`,
-      )
-      .orderBy('items.priority', 'desc')
-      .orderBy('items.created_at', 'asc')
-      .orderBy('items.id', 'asc')
-      .limit(1);
-    if (options.batchId !== undefined) query = query.where('items.batch_id', '=', options.batchId);
-    if (store.kind === 'postgres') query = query.forUpdate().skipLocked();
-    const next = await query.executeTakeFirst();
+    const capacity = sql<number>`(select count(*) from reviews where reviews.item_id = items.id and reviews.status = 'submitted') + (select count(*) from work_claims where work_claims.item_id = items.id)`;
+    const required = sql<number>`(select reviews_required from batches where batches.id = items.batch_id)`;
+    const passedOver: number[] = [];
+    let next: { id: number } | undefined;
+    for (let attempt = 0; attempt < 20 && !next; attempt++) {
+      let query = trx
+        .selectFrom('items')
+        .select('items.id')
+        .where('items.state', 'in', OPEN)
+        .where(({ not, exists, selectFrom }) => not(exists(selectFrom('reviews').select('reviews.id').whereRef('reviews.item_id', '=', 'items.id').where('reviews.reviewer_id', '=', userId))))
+        .where(capacity, '<', required)
+        .orderBy('items.priority', 'desc')
+        .orderBy('items.created_at', 'asc')
+        .orderBy('items.id', 'asc')
+        .limit(1);
+      if (options.batchId !== undefined) query = query.where('items.batch_id', '=', options.batchId);
+      if (passedOver.length) query = query.where('items.id', 'not in', passedOver);
+      if (store.kind === 'postgres') query = query.forUpdate().skipLocked();
+      const candidate = await query.executeTakeFirst();
+      if (!candidate) return null;
+      // The row lock is ours now, but the counts above came from the statement's snapshot, taken
+      // before the lock: a claim committed in between would be missed. Count again.
+      const recount = await trx.selectFrom('items').select([capacity.as('taken'), required.as('required')]).where('items.id', '=', candidate.id).executeTakeFirstOrThrow();
+      if (Number(recount.taken) < Number(recount.required)) next = candidate;
+      else passedOver.push(candidate.id);
+    }
     if (!next) return null;
     await trx.insertInto('work_claims').values({ item_id: next.id, user_id: userId, claimed_at: nowIso, expires_at: expiresAt }).execute();
     await recordAudit(trx, { actorId: userId, kind: 'claim', subject: `item:${next.id}` });
@@ -98,6 +107,11 @@ async function responseIds(trx: Trx, itemId: number): Promise<string[]> {
 export async function submitReview(store: Store, input: ReviewSubmission, options: { minRationale?: number; now?: number } = {}): Promise<{ state: ItemState; verdict?: Verdict }> {
   const nowIso = new Date(options.now ?? Date.now()).toISOString();
   return store.db.transaction().execute(async (trx) => {
+    // Lock the item row first (PostgreSQL) so that two reviewers finishing the same item at once
+    // are serialised: the second sees the first's review and applies the consensus rule.
+    let locked = trx.selectFrom('items').select('items.id').where('items.id', '=', input.itemId);
+    if (store.kind === 'postgres') locked = locked.forUpdate();
+    await locked.executeTakeFirst();
     const item = await trx.selectFrom('items').innerJoin('batches', 'batches.id', 'items.batch_id').select(['items.id', 'items.state', 'batches.reviews_required', 'batches.consensus_rule']).where('items.id', '=', input.itemId).executeTakeFirst();
     if (!item) throw new ReviewInvalid(`there is no item ${input.itemId}`);
     if (!OPEN.includes(item.state)) throw new ReviewConflict(`this item is no longer open for review (it is ${item.state.replace('_', ' ')}); take the next one from the queue`);

@@ -9,6 +9,8 @@ import { openStore, type Store } from '../../src/store/connect.ts';
 export interface StoreFactory {
   kind: 'sqlite' | 'postgres';
   open(): Promise<Store>;
+  /** Another connection (pool) to the database opened last: a second app instance. */
+  openAgain(): Promise<Store>;
   cleanup(): Promise<void>;
 }
 
@@ -38,6 +40,9 @@ export function sqliteFactory(): StoreFactory {
       dirs.push(dir);
       return openStore({ kind: 'sqlite', file: join(dir, 'test.db') });
     },
+    async openAgain() {
+      return openStore({ kind: 'sqlite', file: join(dirs.at(-1)!, 'test.db') });
+    },
     async cleanup() {
       for (const dir of dirs.splice(0)) rmSync(dir, { recursive: true, force: true });
     },
@@ -47,8 +52,16 @@ export function sqliteFactory(): StoreFactory {
 /** Each PostgreSQL store lives in a schema of its own, dropped at cleanup. */
 export function postgresFactory(url: string): StoreFactory {
   const schemas: string[] = [];
+  const inSchema = (schema: string) => {
+    const withSchema = new URL(url);
+    withSchema.searchParams.set('options', `-c search_path=${schema}`);
+    return withSchema.toString();
+  };
   return {
     kind: 'postgres',
+    async openAgain() {
+      return openStore({ kind: 'postgres', url: inSchema(schemas.at(-1)!) });
+    },
     async open() {
       const schema = `plumbline_test_${randomBytes(6).toString('hex')}`;
       const admin = new pg.Client({ connectionString: url });
@@ -56,9 +69,7 @@ export function postgresFactory(url: string): StoreFactory {
       await admin.query(`create schema ${schema}`);
       await admin.end();
       schemas.push(schema);
-      const withSchema = new URL(url);
-      withSchema.searchParams.set('options', `-c search_path=${schema}`);
-      return openStore({ kind: 'postgres', url: withSchema.toString() });
+      return openStore({ kind: 'postgres', url: inSchema(schema) });
     },
     async cleanup() {
       if (schemas.length === 0) return;
