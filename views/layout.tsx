@@ -49,6 +49,7 @@ export function Layout({ title, user, csrfToken, children }: LayoutProps) {
                 {hasAnyRole(user.roles, ['data', 'admin']) && <li><a href="/batches">Batches</a></li>}
                 {hasAnyRole(user.roles, ['policy', 'admin', 'data', 'adjudicator']) && <li><a href="/rubrics">Rubrics</a></li>}
                 {hasAnyRole(user.roles, ['policy', 'admin', 'data', 'adjudicator']) && <li><a href="/stats">Statistics</a></li>}
+                {hasAnyRole(user.roles, ['admin']) && <li><a href="/admin/users">Users</a></li>}
                 {hasAnyRole(user.roles, ['admin']) && <li><a href="/admin/audit">Audit log</a></li>}
                 {hasAnyRole(user.roles, ['admin']) && <li><a href="/admin/tokens">API tokens</a></li>}
               </ul>

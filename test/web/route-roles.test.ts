@@ -43,6 +43,8 @@ const routes: Route[] = [
   { method: 'GET', path: () => '/admin/audit', allowed: ['admin'] },
   { method: 'GET', path: () => '/admin/audit.jsonl', allowed: ['admin'] },
   { method: 'GET', path: () => '/admin/tokens', allowed: ['admin'] },
+  { method: 'GET', path: () => '/admin/users', allowed: ['admin'] },
+  { method: 'POST', path: () => '/admin/users', allowed: ['admin'], body: () => ({ username: `role${Date.now() % 100000}`, roles: 'reviewer' }) },
   { method: 'POST', path: () => '/admin/tokens', allowed: ['admin'], body: () => ({ name: 'role test', scopes: 'export' }) },
   { method: 'POST', path: () => '/rubrics/validate', allowed: ['policy'], body: () => ({ source: rubricSource }) },
   { method: 'POST', path: () => '/rubrics/cairnfield-support/preview', allowed: ['policy'], body: () => ({ source: rubricSource, batch: String(batchId) }) },

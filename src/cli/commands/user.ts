@@ -1,11 +1,9 @@
 import { configFromEnv } from '../../config.ts';
-import { generatePassword, hashPassword } from '../../auth/password.ts';
 import { parseRoles, ROLES, type Role } from '../../auth/roles.ts';
 import { UsageError, UserError } from '../../errors.ts';
 import { openStore, type Store } from '../../store/connect.ts';
 import { migrate } from '../../store/migrate.ts';
-import { recordAudit } from '../../store/repos/audit.ts';
-import { createUser, findUserByName, listUsers } from '../../store/repos/users.ts';
+import { addUserWithPassword, disableUser, findUserByName, listUsers, resetUserPassword, USERNAME } from '../../store/repos/users.ts';
 import type { Command, CommandIo } from '../command.ts';
 
 async function withStore<T>(io: CommandIo, run: (store: Store) => Promise<T>): Promise<T> {
@@ -26,7 +24,6 @@ function rolesFrom(raw: string | undefined): Role[] {
   return parseRoles(asked.join(','));
 }
 
-const USERNAME = /^[a-z0-9][a-z0-9._-]{1,39}$/;
 
 /** `plumbline user add NAME --roles R[,R…] [--display-name TEXT]`: prints the new password once. */
 export const userAddCommand: Command = {
@@ -41,9 +38,7 @@ export const userAddCommand: Command = {
     const roles = rolesFrom(args.values.roles);
     return withStore(io, async (store) => {
       if (await findUserByName(store.db, username)) throw new UserError(`a user named "${username}" already exists — choose another name or reset their password`);
-      const password = generatePassword();
-      const id = await createUser(store.db, { username, displayName: args.values['display-name'] ?? username, password, roles });
-      await recordAudit(store.db, { actorId: null, kind: 'user_add', subject: `user:${id}`, detail: { username, roles, via: 'cli' } });
+      const { password } = await addUserWithPassword(store.db, { username, displayName: args.values['display-name'] ?? username, roles }, null, 'cli');
       io.out(`added ${username} (${roles.join(', ')}); password: ${password}`);
       io.out('The password is shown this once. Pass it on privately.');
       return 0;
@@ -77,11 +72,7 @@ export const userDisableCommand: Command = {
     return withStore(io, async (store) => {
       const user = await findUserByName(store.db, username);
       if (!user) throw new UserError(`there is no user "${username}" — plumbline user list shows them`);
-      await store.db.transaction().execute(async (trx) => {
-        await trx.updateTable('users').set({ disabled: 1 }).where('id', '=', user.id).execute();
-        await trx.deleteFrom('sessions').where('user_id', '=', user.id).execute();
-        await recordAudit(trx, { actorId: null, kind: 'user_disable', subject: `user:${user.id}`, detail: { username, via: 'cli' } });
-      });
+      await disableUser(store.db, user.id, null, 'cli');
       io.out(`disabled ${username}; their sessions have ended`);
       return 0;
     });
@@ -100,13 +91,7 @@ export const userResetPasswordCommand: Command = {
     return withStore(io, async (store) => {
       const user = await findUserByName(store.db, username);
       if (!user) throw new UserError(`there is no user "${username}" — plumbline user list shows them`);
-      const password = generatePassword();
-      const hash = await hashPassword(password);
-      await store.db.transaction().execute(async (trx) => {
-        await trx.updateTable('users').set({ password_hash: hash, disabled: 0 }).where('id', '=', user.id).execute();
-        await trx.deleteFrom('sessions').where('user_id', '=', user.id).execute();
-        await recordAudit(trx, { actorId: null, kind: 'user_reset_password', subject: `user:${user.id}`, detail: { username, via: 'cli' } });
-      });
+      const password = await resetUserPassword(store.db, user.id, null, 'cli');
       io.out(`new password for ${username}: ${password}`);
       io.out('The password is shown this once. Pass it on privately.');
       return 0;

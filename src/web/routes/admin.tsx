@@ -6,6 +6,10 @@ import { recordAudit } from '../../store/repos/audit.ts';
 import type { Database } from '../../store/schema.ts';
 import { AuditPage } from '../../../views/audit-page.tsx';
 import { TokensPage } from '../../../views/tokens-page.tsx';
+import { UsersPage } from '../../../views/users-page.tsx';
+import { addUserWithPassword, disableUser, findUserById, findUserByName, listUsers, resetUserPassword, USERNAME } from '../../store/repos/users.ts';
+import { parseRoles } from '../../auth/roles.ts';
+import { HttpError } from '../../errors.ts';
 import { createApiToken, listApiTokens, revokeApiToken, TOKEN_SCOPES, type TokenScope } from '../../store/repos/api-tokens.ts';
 import type { AppEnv } from '../context.ts';
 import { requireRole } from '../middleware/require-role.ts';
@@ -33,7 +37,7 @@ function filterFrom(query: (name: string) => string | undefined): AuditFilter {
   return { kind: clean(query('kind')), actor: clean(query('actor')), since: since && /^\d{4}-\d{2}-\d{2}/.test(since) ? since : undefined };
 }
 
-/** Admin pages: the audit log (filter, export as JSON Lines) and API tokens (create, revoke). */
+/** Admin pages: users (add, disable, reset passwords), the audit log (filter, export as JSON Lines) and API tokens (create, revoke). */
 export function adminRoutes() {
   const app = new Hono<AppEnv>();
 
@@ -60,6 +64,41 @@ export function adminRoutes() {
         after = page[page.length - 1].id;
       }
     });
+  });
+
+  app.get('/admin/users', requireRole('admin'), async (c) => {
+    return c.html(<UsersPage user={c.get('user')!} csrfToken={c.get('csrfToken')} users={await listUsers(c.get('store').db)} />);
+  });
+
+  app.post('/admin/users', requireRole('admin'), async (c) => {
+    const { db } = c.get('store');
+    const body = await c.req.parseBody({ all: true });
+    const username = typeof body.username === 'string' ? body.username.trim() : '';
+    const roles = parseRoles(([] as unknown[]).concat(body.roles ?? []).filter((r): r is string => typeof r === 'string').join(','));
+    const again = async (error: string) => c.html(<UsersPage user={c.get('user')!} csrfToken={c.get('csrfToken')} users={await listUsers(db)} error={error} />, 422);
+    if (!USERNAME.test(username)) return again('A user name is 2–40 lower-case letters, digits, dots, hyphens or underscores.');
+    if (!roles.length) return again('Give the user at least one role.');
+    if (await findUserByName(db, username)) return again(`A user named "${username}" already exists. Reset their password instead.`);
+    const displayName = typeof body.display_name === 'string' && body.display_name.trim() ? body.display_name.trim().slice(0, 80) : username;
+    const { password } = await addUserWithPassword(db, { username, displayName, roles }, c.get('user')!.id, 'web');
+    return c.html(<UsersPage user={c.get('user')!} csrfToken={c.get('csrfToken')} users={await listUsers(db)} shown={{ username, password }} />, 201);
+  });
+
+  app.post('/admin/users/:id{[0-9]+}/disable', requireRole('admin'), async (c) => {
+    const { db } = c.get('store');
+    const target = await findUserById(db, Number(c.req.param('id')));
+    if (!target) throw new HttpError(404, 'There is no such user.');
+    if (target.id === c.get('user')!.id) throw new HttpError(422, 'You cannot disable your own account. Ask another admin.');
+    await disableUser(db, target.id, c.get('user')!.id, 'web');
+    return c.redirect('/admin/users', 303);
+  });
+
+  app.post('/admin/users/:id{[0-9]+}/reset-password', requireRole('admin'), async (c) => {
+    const { db } = c.get('store');
+    const target = await findUserById(db, Number(c.req.param('id')));
+    if (!target) throw new HttpError(404, 'There is no such user.');
+    const password = await resetUserPassword(db, target.id, c.get('user')!.id, 'web');
+    return c.html(<UsersPage user={c.get('user')!} csrfToken={c.get('csrfToken')} users={await listUsers(db)} shown={{ username: target.username, password }} />);
   });
 
   app.get('/admin/tokens', requireRole('admin'), async (c) => {
