@@ -1,10 +1,12 @@
 import { createHash } from 'node:crypto';
-import { createReadStream, writeFileSync } from 'node:fs';
+import { createReadStream, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { UserError, errorCode } from '../errors.ts';
 import type { Rubric } from '../rubric/load.ts';
 import { scoreItem } from '../rubric/score.ts';
 import type { Store } from '../store/connect.ts';
-import { findBatchByName, findBatchBySource } from '../store/repos/batches.ts';
+import { findBatchByName, findBatchBySource, insertItem } from '../store/repos/batches.ts';
 import { recordAudit } from '../store/repos/audit.ts';
 import { ensureRubricVersion, storeItemScore } from '../store/repos/scores.ts';
 import { nowIso } from '../clock.ts';
@@ -97,18 +99,9 @@ export async function importBatch(store: Store, options: ImportOptions): Promise
     for await (const event of readBatch(createReadStream(options.path), options.path, { maxTextBytes: options.maxTextBytes })) {
       if (event.kind !== 'item') continue;
       const { item } = event;
-      const { id: itemId } = await trx
-        .insertInto('items')
-        .values({ batch_id: batchId, prompt_id: item.promptId, prompt: item.prompt, flag_reason: item.flag?.reason ?? null, flag_severity: item.flag?.severity ?? null, meta: item.meta ? JSON.stringify(item.meta) : null, state: 'open', priority: 0, created_at: createdAt })
-        .returning('id')
-        .executeTakeFirstOrThrow();
-      const rows = await trx
-        .insertInto('responses')
-        .values(item.responses.map((r, position) => ({ item_id: itemId, response_id: r.responseId, text: r.text, position })))
-        .returning(['id', 'response_id'])
-        .execute();
+      const { itemId, responseRows } = await insertItem(trx, batchId, item, createdAt);
       const scored = scoreItem(rubric, { prompt: item.prompt, responses: item.responses, flagSeverity: item.flag?.severity ?? null });
-      await storeItemScore(trx, itemId, scored, new Map(rows.map((r) => [r.response_id, r.id])));
+      await storeItemScore(trx, itemId, scored, responseRows);
       stored++;
       responses += item.responses.length;
       options.onProgress?.(stored);
@@ -116,4 +109,19 @@ export async function importBatch(store: Store, options: ImportOptions): Promise
     await recordAudit(trx, { actorId: options.createdBy ?? null, kind: 'import', subject: `batch:${batchId}`, detail: { name: options.batchName, items: stored, responses, rejected: problems.length, rubric: `${rubric.id}@${rubric.version}`, source: name } });
     return { batchId, items: stored, responses, rejected: problems.length };
   });
+}
+
+/**
+ * Imports a batch that arrived as bytes (a browser upload or an API body): saved to a private
+ * temporary file for the two reading passes, then removed.
+ */
+export async function importUploaded(store: Store, bytes: Uint8Array, format: 'jsonl' | 'csv', options: Omit<ImportOptions, 'path'>): Promise<ImportResult> {
+  const dir = mkdtempSync(join(tmpdir(), 'plumbline-upload-'));
+  try {
+    const path = join(dir, `upload.${format}`);
+    writeFileSync(path, bytes);
+    return await importBatch(store, { ...options, path });
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
 }

@@ -1,4 +1,4 @@
-import type { Kysely } from 'kysely';
+import type { Kysely, Transaction } from 'kysely';
 import { nowIso } from '../../clock.ts';
 import { UserError } from '../../errors.ts';
 import type { Batch, Database } from '../schema.ts';
@@ -69,28 +69,7 @@ export async function storeBatch(db: Kysely<Database>, batch: NewBatch): Promise
       .returning('id')
       .executeTakeFirstOrThrow();
     const itemIds: number[] = [];
-    for (const item of batch.items) {
-      const { id: itemId } = await trx
-        .insertInto('items')
-        .values({
-          batch_id: batchId,
-          prompt_id: item.promptId,
-          prompt: item.prompt,
-          flag_reason: item.flag?.reason ?? null,
-          flag_severity: item.flag?.severity ?? null,
-          meta: item.meta ? JSON.stringify(item.meta) : null,
-          state: 'open',
-          priority: item.priority ?? 0,
-          created_at: createdAt,
-        })
-        .returning('id')
-        .executeTakeFirstOrThrow();
-      itemIds.push(itemId);
-      await trx
-        .insertInto('responses')
-        .values(item.responses.map((r, position) => ({ item_id: itemId, response_id: r.responseId, text: r.text, position })))
-        .execute();
-    }
+    for (const item of batch.items) itemIds.push((await insertItem(trx, batchId, item, createdAt)).itemId);
     await recordAudit(trx, {
       actorId: batch.createdBy ?? null,
       kind: 'import',
@@ -134,4 +113,32 @@ export async function listBatches(db: Kysely<Database>): Promise<BatchSummary[]>
     .orderBy('batches.id', 'desc')
     .execute();
   return rows.map((r) => ({ ...r, items: Number(r.items), final: Number(r.final ?? 0) }));
+}
+
+/**
+ * Inserts one item with its responses (in file order) and returns the item's id and each
+ * response's row id by its imported id. Used by every path that stores items.
+ */
+export async function insertItem(trx: Transaction<Database>, batchId: number, item: NewItem, createdAt: string): Promise<{ itemId: number; responseRows: Map<string, number> }> {
+  const { id: itemId } = await trx
+    .insertInto('items')
+    .values({
+      batch_id: batchId,
+      prompt_id: item.promptId,
+      prompt: item.prompt,
+      flag_reason: item.flag?.reason ?? null,
+      flag_severity: item.flag?.severity ?? null,
+      meta: item.meta ? JSON.stringify(item.meta) : null,
+      state: 'open',
+      priority: item.priority ?? 0,
+      created_at: createdAt,
+    })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  const rows = await trx
+    .insertInto('responses')
+    .values(item.responses.map((r, position) => ({ item_id: itemId, response_id: r.responseId, text: r.text, position })))
+    .returning(['id', 'response_id'])
+    .execute();
+  return { itemId, responseRows: new Map(rows.map((r) => [r.response_id, r.id])) };
 }

@@ -1,9 +1,6 @@
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { Hono } from 'hono';
 import { HttpError, UserError } from '../../errors.ts';
-import { importBatch, ImportRefused } from '../../io/import-batch.ts';
+import { importUploaded, ImportRefused } from '../../io/import-batch.ts';
 import { currentRubric } from '../../store/repos/rubrics.ts';
 import type { AppEnv } from '../context.ts';
 import { requireToken, type RateLimit } from '../middleware/api-token.ts';
@@ -21,19 +18,14 @@ export function apiRoutes(options: { rateLimit?: RateLimit } = {}) {
     if (reviews !== undefined && (!Number.isInteger(reviews) || reviews < 1 || reviews > 5)) throw new HttpError(422, 'reviews must be a whole number from 1 to 5.');
     const rubric = await currentRubric(c.get('store').db, c.req.query('rubric') ?? 'general');
     if (!rubric) throw new HttpError(422, `There is no rubric "${c.req.query('rubric')}".`);
-    const dir = mkdtempSync(join(tmpdir(), 'plumbline-api-'));
     try {
-      const path = join(dir, `upload.${extension}`);
-      writeFileSync(path, Buffer.from(await c.req.arrayBuffer()));
       const token = c.get('apiToken')!;
-      const result = await importBatch(c.get('store'), { path, displayName: `api:${token.name}`, batchName: name, rubric, reviews, createdBy: token.createdBy });
+      const result = await importUploaded(c.get('store'), new Uint8Array(await c.req.arrayBuffer()), extension, { displayName: `api:${token.name}`, batchName: name, rubric, reviews, createdBy: token.createdBy });
       return c.json({ batch_id: result.batchId, items: result.items, responses: result.responses, rubric: { id: rubric.id, version: rubric.version } }, 201);
     } catch (error) {
       if (error instanceof ImportRefused) return c.json({ error: 'nothing was imported: fix these lines and send the file again', problems: error.problems.map((p) => ({ line: p.line, field: p.field, reason: p.message })) }, 422);
       if (error instanceof UserError) return c.json({ error: error.message }, 409);
       throw error;
-    } finally {
-      rmSync(dir, { recursive: true, force: true });
     }
   });
   return app;

@@ -1,11 +1,8 @@
 /** @jsxImportSource hono/jsx */
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { Hono } from 'hono';
 import { stream } from 'hono/streaming';
 import { HttpError, UserError } from '../../errors.ts';
-import { importBatch, ImportRefused } from '../../io/import-batch.ts';
+import { importUploaded, ImportRefused } from '../../io/import-batch.ts';
 import { decidedItems, pairsOf, rankingOf } from '../../io/export-decisions.ts';
 import { listBatches } from '../../store/repos/batches.ts';
 import { recordAudit } from '../../store/repos/audit.ts';
@@ -30,19 +27,14 @@ export function batchIoRoutes() {
     const rubric = await currentRubric(db, typeof body.rubric === 'string' && body.rubric ? body.rubric : 'general');
     if (!rubric) return render(422, { error: 'Pick a rubric.' });
     const reviews = body.reviews ? Number(body.reviews) : undefined;
-    const dir = mkdtempSync(join(tmpdir(), 'plumbline-upload-'));
     try {
-      const extension = /\.csv$/i.test(file.name) ? 'csv' : 'jsonl';
-      const path = join(dir, `upload.${extension}`);
-      writeFileSync(path, Buffer.from(await file.arrayBuffer()));
-      const result = await importBatch(c.get('store'), { path, displayName: file.name, batchName: name, rubric, reviews: Number.isInteger(reviews) ? reviews : undefined, createdBy: c.get('user')!.id });
+      const format = /\.csv$/i.test(file.name) ? 'csv' : 'jsonl';
+      const result = await importUploaded(c.get('store'), new Uint8Array(await file.arrayBuffer()), format, { displayName: file.name, batchName: name, rubric, reviews: Number.isInteger(reviews) ? reviews : undefined, createdBy: c.get('user')!.id });
       return render(201, { ok: `Imported "${name}": ${result.items} prompts and ${result.responses} responses, scored with ${rubric.id} ${rubric.version}.` });
     } catch (error) {
       if (error instanceof ImportRefused) return render(422, { error: `Nothing was imported: ${error.problems.length} problem(s) in ${file.name}. Fix these lines and upload the file again.`, problems: error.problems });
       if (error instanceof UserError) return render(409, { error: error.message });
       throw error;
-    } finally {
-      rmSync(dir, { recursive: true, force: true });
     }
   });
 
