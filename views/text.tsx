@@ -5,7 +5,7 @@
  */
 export function shortText(text: string, max: number): string {
   const flat = text.replace(/\s+/g, ' ').trim();
-  return flat.length <= max ? flat : `${flat.slice(0, max - 1)}…`;
+  return revealInvisible(flat.length <= max ? flat : `${flat.slice(0, max - 1)}…`);
 }
 
 /** Bidi controls and zero-width characters that can make text read differently than it is. */

@@ -139,3 +139,18 @@ describe('plumbline import', () => {
     expect(result.stderr.trim()).toBe('plumbline: import: name the batch with --batch NAME');
   });
 });
+
+describe('score progress', () => {
+  it('reports progress on stderr, a line every tenth when not on a terminal, for inputs over 1,000 responses', () => {
+    const big = join(dir, 'big.jsonl');
+    writeFileSync(big, Array.from({ length: 205 }, (_, i) => JSON.stringify({ prompt_id: `b${i}`, prompt: 'How long should I boil water?', responses: 'abcde'.split('').map((id) => ({ response_id: id, text: `Boil it for ${i % 9 + 1} minutes.` })) })).join('\n'));
+    const out = join(dir, 'big-scored.jsonl');
+    const result = runCli(['score', big, '--out', out]);
+    expect(result.code).toBe(0);
+    const lines = result.stderr.split('\n').filter((l) => l.startsWith('scoring:'));
+    expect(lines).toHaveLength(10);
+    expect(lines[0]).toMatch(/^scoring: \d+ of 1025 responses \(10%\)$/);
+    expect(lines.at(-1)).toBe('scoring: 1025 of 1025 responses (100%)');
+    expect(readFileSync(out, 'utf8').trim().split('\n')).toHaveLength(1025);
+  }, 120_000);
+});

@@ -118,3 +118,13 @@ describe('sign-in, home queue and headers', () => {
     expect(await res.text()).toContain('go back to the queue');
   });
 });
+
+describe('shortened text in lists', () => {
+  it('makes bidi overrides and zero-width characters visible in the queue too', async () => {
+    const { cookie } = await signIn(app, 'reviewer');
+    const item = await store.db.selectFrom('items').select('id').where('state', '=', 'open').orderBy('priority', 'desc').executeTakeFirstOrThrow();
+    await store.db.updateTable('items').set({ prompt: 'Safe\u202Eesrever\u200B question' }).where('id', '=', item.id).execute();
+    const html = await (await app.request('/', { headers: { cookie } })).text();
+    expect(html).toContain('Safe⟦U+202E⟧esrever⟦U+200B⟧ question');
+  });
+});
