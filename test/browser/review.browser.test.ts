@@ -1,31 +1,24 @@
 import { mkdirSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { chromiumAvailable, launchChromium } from '../helpers/browser.ts';
-import { sqliteFactory } from '../helpers/stores.ts';
+import { chromiumAvailable, startBrowserApp } from '../helpers/browser.ts';
 import { demoPassword } from '../helpers/web.ts';
-import { migrate } from '../../src/store/migrate.ts';
-import { seedDemo } from '../../src/demo/seed.ts';
-import { startServer, type RunningServer } from '../../src/web/server.ts';
+import type { RunningServer } from '../../src/web/server.ts';
 import type { Store } from '../../src/store/connect.ts';
 
 const ARTIFACTS = new URL('../../test-artifacts/', import.meta.url).pathname;
 
 describe.skipIf(!chromiumAvailable())('reviewing in a real browser (headless Chromium)', () => {
-  const factory = sqliteFactory();
   let store: Store;
   let server: RunningServer;
   let browser: Browser;
+  let close: () => Promise<void>;
   let page: Page;
   const problems: string[] = [];
 
   beforeAll(async () => {
     mkdirSync(ARTIFACTS, { recursive: true });
-    store = await factory.open();
-    await migrate(store);
-    await seedDemo(store.db, { password: demoPassword });
-    server = await startServer(store, { host: '127.0.0.1', port: 0 });
-    browser = await launchChromium();
+    ({ store, server, browser, close } = await startBrowserApp(demoPassword));
     // tall enough that every candidate is on screen: native drag and drop needs source and target visible
     page = await browser.newPage({ viewport: { width: 1280, height: 3200 } });
     page.on('console', (m) => { if (m.type() === 'error') problems.push(m.text()); });
@@ -36,10 +29,7 @@ describe.skipIf(!chromiumAvailable())('reviewing in a real browser (headless Chr
     await Promise.all([page.waitForURL(`${server.url}/`), page.click('button[type=submit]')]);
   }, 60_000);
   afterAll(async () => {
-    await browser?.close();
-    await server?.close();
-    await store?.close();
-    await factory.cleanup();
+    await close?.();
   });
 
   it('ranks by keyboard and by drag, reveals, shows a hidden passage, revises and submits', async () => {

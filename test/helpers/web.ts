@@ -1,4 +1,6 @@
+import { afterAll, beforeAll } from 'vitest';
 import { createApp } from '../../src/web/app.tsx';
+import { sqliteFactory } from './stores.ts';
 import { seedDemo } from '../../src/demo/seed.ts';
 import { migrate } from '../../src/store/migrate.ts';
 import type { Store } from '../../src/store/connect.ts';
@@ -49,4 +51,22 @@ export async function signIn(app: App, username: string): Promise<{ cookie: stri
   cookie = cookiesFrom(res, cookie);
   const home = await app.request('/', { headers: { cookie } });
   return { cookie, csrf: csrfFrom(await home.text()) };
+}
+
+/**
+ * A migrated, demo-seeded SQLite store and an app over it for one test file, opened before its
+ * tests and removed after them. Read `fixture.store` and `fixture.app` inside tests.
+ */
+export function useSeededApp(): { store: Store; app: App } {
+  const factory = sqliteFactory();
+  const fixture = {} as { store: Store; app: App };
+  beforeAll(async () => {
+    fixture.store = await factory.open();
+    fixture.app = await seededApp(fixture.store);
+  });
+  afterAll(async () => {
+    await fixture.store.close();
+    await factory.cleanup();
+  });
+  return fixture;
 }

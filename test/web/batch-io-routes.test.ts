@@ -1,21 +1,8 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { sql } from 'kysely';
-import { sqliteFactory } from '../helpers/stores.ts';
-import { ORIGIN, seededApp, signIn } from '../helpers/web.ts';
-import type { Store } from '../../src/store/connect.ts';
+import { ORIGIN, useSeededApp, signIn } from '../helpers/web.ts';
 
-const factory = sqliteFactory();
-let store: Store;
-let app: Awaited<ReturnType<typeof seededApp>>;
-
-beforeAll(async () => {
-  store = await factory.open();
-  app = await seededApp(store);
-});
-afterAll(async () => {
-  await store.close();
-  await factory.cleanup();
-});
+const fixture = useSeededApp();
 
 async function upload(session: { cookie: string; csrf: string }, content: string, name: string, filename = 'batch.jsonl') {
   const body = new FormData();
@@ -24,14 +11,14 @@ async function upload(session: { cookie: string; csrf: string }, content: string
   body.set('rubric', 'general');
   body.set('reviews', '2');
   body.set('file', new File([content], filename));
-  return app.request('/batches/import', { method: 'POST', headers: { cookie: session.cookie, origin: ORIGIN }, body });
+  return fixture.app.request('/batches/import', { method: 'POST', headers: { cookie: session.cookie, origin: ORIGIN }, body });
 }
 
 const good = [1, 2, 3].map((i) => JSON.stringify({ prompt_id: `w${i}`, prompt: `Web question ${i}?`, responses: [{ response_id: 'a', text: 'Yes.' }, { response_id: 'b', text: 'No.' }] })).join('\n');
 
 describe('batches from the browser', () => {
   it('imports an uploaded file, scored, and refuses the same file again', async () => {
-    const data = await signIn(app, 'data');
+    const data = await signIn(fixture.app, 'data');
     const res = await upload(data, good, 'from the web');
     expect(res.status).toBe(201);
     expect(await res.text()).toMatch(/Imported &quot;from the web&quot;: 3 prompts and 6 responses, scored with general/);
@@ -41,29 +28,29 @@ describe('batches from the browser', () => {
   });
 
   it('lists every bad line of a refused upload and stores nothing', async () => {
-    const data = await signIn(app, 'data');
-    const before = Number((await store.db.selectFrom('items').select(sql<number>`count(*)`.as('n')).executeTakeFirstOrThrow()).n);
+    const data = await signIn(fixture.app, 'data');
+    const before = Number((await fixture.store.db.selectFrom('items').select(sql<number>`count(*)`.as('n')).executeTakeFirstOrThrow()).n);
     const res = await upload(data, 'prompt_id,prompt,response_id,response\np,q,a,x\n', 'bad csv', 'bad.csv');
     expect(res.status).toBe(422);
     expect(await res.text()).toContain('line 2, responses: has 1 response; a prompt needs 2 to 9 to rank');
-    expect(Number((await store.db.selectFrom('items').select(sql<number>`count(*)`.as('n')).executeTakeFirstOrThrow()).n)).toBe(before);
+    expect(Number((await fixture.store.db.selectFrom('items').select(sql<number>`count(*)`.as('n')).executeTakeFirstOrThrow()).n)).toBe(before);
   });
 
   it('streams final decisions as pairs, redacted on request, and records the export', async () => {
-    const data = await signIn(app, 'data');
-    const res = await app.request('/export?format=pairs&redact=1&batch=' + encodeURIComponent('Cairnfield support — flagged week 48'), { headers: { cookie: data.cookie } });
+    const data = await signIn(fixture.app, 'data');
+    const res = await fixture.app.request('/export?format=pairs&redact=1&batch=' + encodeURIComponent('Cairnfield support — flagged week 48'), { headers: { cookie: data.cookie } });
     expect(res.status).toBe(200);
     expect(res.headers.get('content-disposition')).toContain('plumbline-pairs.jsonl');
     const lines = (await res.text()).trim().split('\n').map((l) => JSON.parse(l));
     expect(lines.length).toBeGreaterThan(50);
     expect(JSON.stringify(lines)).not.toContain('4111 1111 1111 1111');
-    const audit = await store.db.selectFrom('audit_events').select('detail').where('kind', '=', 'export').execute();
+    const audit = await fixture.store.db.selectFrom('audit_events').select('detail').where('kind', '=', 'export').execute();
     expect(audit.some((a) => JSON.parse(a.detail!).via === 'web')).toBe(true);
   });
 
   it('is for data engineers and admins', async () => {
-    const reviewer = await signIn(app, 'reviewer');
-    expect((await app.request('/export', { headers: { cookie: reviewer.cookie } })).status).toBe(403);
+    const reviewer = await signIn(fixture.app, 'reviewer');
+    expect((await fixture.app.request('/export', { headers: { cookie: reviewer.cookie } })).status).toBe(403);
     expect((await upload(reviewer, good, 'nope')).status).toBe(403);
   });
 });

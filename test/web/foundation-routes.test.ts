@@ -1,31 +1,18 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sqliteFactory } from '../helpers/stores.ts';
-import { ORIGIN, cookiesFrom, csrfFrom, demoPassword, seededApp, signIn } from '../helpers/web.ts';
+import { describe, expect, it } from 'vitest';
+import { ORIGIN, cookiesFrom, csrfFrom, demoPassword, useSeededApp, signIn } from '../helpers/web.ts';
 import { CONTENT_SECURITY_POLICY } from '../../src/web/middleware/security-headers.ts';
-import type { Store } from '../../src/store/connect.ts';
 
-const factory = sqliteFactory();
-let store: Store;
-let app: Awaited<ReturnType<typeof seededApp>>;
-
-beforeAll(async () => {
-  store = await factory.open();
-  app = await seededApp(store);
-});
-afterAll(async () => {
-  await store.close();
-  await factory.cleanup();
-});
+const fixture = useSeededApp();
 
 describe('sign-in, home queue and headers', () => {
   it('sends a visitor who is not signed in to the login page', async () => {
-    const res = await app.request('/');
+    const res = await fixture.app.request('/');
     expect(res.status).toBe(303);
     expect(res.headers.get('location')).toBe('/login?next=%2F');
   });
 
   it('serves every page with the strict CSP and no inline script', async () => {
-    const res = await app.request('/login');
+    const res = await fixture.app.request('/login');
     expect(res.headers.get('content-security-policy')).toBe(CONTENT_SECURITY_POLICY);
     expect(res.headers.get('x-content-type-options')).toBe('nosniff');
     const html = await res.text();
@@ -36,8 +23,8 @@ describe('sign-in, home queue and headers', () => {
   });
 
   it('shows the demo queue, flagged items first, after signing in', async () => {
-    const { cookie } = await signIn(app, 'reviewer');
-    const res = await app.request('/', { headers: { cookie } });
+    const { cookie } = await signIn(fixture.app, 'reviewer');
+    const res = await fixture.app.request('/', { headers: { cookie } });
     expect(res.status).toBe(200);
     const html = await res.text();
     expect(html).toContain('Review queue');
@@ -48,34 +35,34 @@ describe('sign-in, home queue and headers', () => {
   });
 
   it('returns the queue table alone to an htmx request', async () => {
-    const { cookie } = await signIn(app, 'reviewer');
-    const res = await app.request('/', { headers: { cookie, 'hx-request': 'true' } });
+    const { cookie } = await signIn(fixture.app, 'reviewer');
+    const res = await fixture.app.request('/', { headers: { cookie, 'hx-request': 'true' } });
     const html = await res.text();
     expect(html.startsWith('<table class="queue">')).toBe(true);
   });
 
   it('rejects a wrong password with a message and records the failure', async () => {
-    const page = await app.request('/login');
+    const page = await fixture.app.request('/login');
     const cookie = cookiesFrom(page);
-    const res = await app.request('/login', {
+    const res = await fixture.app.request('/login', {
       method: 'POST',
       headers: { cookie, origin: ORIGIN, 'content-type': 'application/x-www-form-urlencoded' },
       body: new URLSearchParams({ username: 'reviewer', password: 'nope', _csrf: csrfFrom(await page.text()) }),
     });
     expect(res.status).toBe(401);
     expect(await res.text()).toContain('do not match an active account');
-    const failed = await store.db.selectFrom('audit_events').select('kind').where('kind', '=', 'login_failed').execute();
+    const failed = await fixture.store.db.selectFrom('audit_events').select('kind').where('kind', '=', 'login_failed').execute();
     expect(failed.length).toBeGreaterThan(0);
   });
 
   it('refuses a cross-site login post and a post without its token', async () => {
-    const page = await app.request('/login');
+    const page = await fixture.app.request('/login');
     const cookie = cookiesFrom(page);
     const csrf = csrfFrom(await page.text());
     const body = () => new URLSearchParams({ username: 'reviewer', password: demoPassword('reviewer'), _csrf: csrf });
-    const crossSite = await app.request('/login', { method: 'POST', headers: { cookie, origin: 'https://elsewhere.example', 'content-type': 'application/x-www-form-urlencoded' }, body: body() });
+    const crossSite = await fixture.app.request('/login', { method: 'POST', headers: { cookie, origin: 'https://elsewhere.example', 'content-type': 'application/x-www-form-urlencoded' }, body: body() });
     expect(crossSite.status).toBe(403);
-    const noToken = await app.request('/login', {
+    const noToken = await fixture.app.request('/login', {
       method: 'POST',
       headers: { cookie, origin: ORIGIN, 'content-type': 'application/x-www-form-urlencoded' },
       body: new URLSearchParams({ username: 'reviewer', password: demoPassword('reviewer') }),
@@ -85,35 +72,35 @@ describe('sign-in, home queue and headers', () => {
   });
 
   it('ends the session on sign-out', async () => {
-    const { cookie, csrf } = await signIn(app, 'reviewer');
-    const out = await app.request('/logout', { method: 'POST', headers: { cookie, origin: ORIGIN, 'x-csrf-token': csrf } });
+    const { cookie, csrf } = await signIn(fixture.app, 'reviewer');
+    const out = await fixture.app.request('/logout', { method: 'POST', headers: { cookie, origin: ORIGIN, 'x-csrf-token': csrf } });
     expect(out.status).toBe(303);
-    const after = await app.request('/', { headers: { cookie } });
+    const after = await fixture.app.request('/', { headers: { cookie } });
     expect(after.status).toBe(303);
   });
 
   it('keeps the batch list from a reviewer', async () => {
-    const { cookie } = await signIn(app, 'reviewer');
-    const res = await app.request('/batches', { headers: { cookie } });
+    const { cookie } = await signIn(fixture.app, 'reviewer');
+    const res = await fixture.app.request('/batches', { headers: { cookie } });
     expect(res.status).toBe(403);
-    const data = await signIn(app, 'data');
-    const ok = await app.request('/batches', { headers: { cookie: data.cookie } });
+    const data = await signIn(fixture.app, 'data');
+    const ok = await fixture.app.request('/batches', { headers: { cookie: data.cookie } });
     expect(ok.status).toBe(200);
     expect(await ok.text()).toContain('Cairnfield support');
   });
 
   it('renders prompts and responses as text, never as HTML', async () => {
-    const { cookie } = await signIn(app, 'reviewer');
-    const item = await store.db.selectFrom('responses').select(['id', 'item_id']).orderBy('id').limit(1).executeTakeFirstOrThrow();
-    await store.db.updateTable('responses').set({ text: '<img src=x onerror=alert(1)>\u202Eevil' }).where('id', '=', item.id).execute();
-    const html = await (await app.request(`/items/${item.item_id}`, { headers: { cookie } })).text();
+    const { cookie } = await signIn(fixture.app, 'reviewer');
+    const item = await fixture.store.db.selectFrom('responses').select(['id', 'item_id']).orderBy('id').limit(1).executeTakeFirstOrThrow();
+    await fixture.store.db.updateTable('responses').set({ text: '<img src=x onerror=alert(1)>\u202Eevil' }).where('id', '=', item.id).execute();
+    const html = await (await fixture.app.request(`/items/${item.item_id}`, { headers: { cookie } })).text();
     expect(html).toContain('&lt;img src=x onerror=alert(1)&gt;⟦U+202E⟧evil');
     expect(html).not.toContain('<img src=x');
   });
 
   it('answers an unknown page with a 404 page that says what to do', async () => {
-    const { cookie } = await signIn(app, 'reviewer');
-    const res = await app.request('/items/999999', { headers: { cookie } });
+    const { cookie } = await signIn(fixture.app, 'reviewer');
+    const res = await fixture.app.request('/items/999999', { headers: { cookie } });
     expect(res.status).toBe(404);
     expect(await res.text()).toContain('go back to the queue');
   });
@@ -121,10 +108,10 @@ describe('sign-in, home queue and headers', () => {
 
 describe('shortened text in lists', () => {
   it('makes bidi overrides and zero-width characters visible in the queue too', async () => {
-    const { cookie } = await signIn(app, 'reviewer');
-    const item = await store.db.selectFrom('items').select('id').where('state', '=', 'open').orderBy('priority', 'desc').executeTakeFirstOrThrow();
-    await store.db.updateTable('items').set({ prompt: 'Safe\u202Eesrever\u200B question' }).where('id', '=', item.id).execute();
-    const html = await (await app.request('/', { headers: { cookie } })).text();
+    const { cookie } = await signIn(fixture.app, 'reviewer');
+    const item = await fixture.store.db.selectFrom('items').select('id').where('state', '=', 'open').orderBy('priority', 'desc').executeTakeFirstOrThrow();
+    await fixture.store.db.updateTable('items').set({ prompt: 'Safe\u202Eesrever\u200B question' }).where('id', '=', item.id).execute();
+    const html = await (await fixture.app.request('/', { headers: { cookie } })).text();
     expect(html).toContain('Safe⟦U+202E⟧esrever⟦U+200B⟧ question');
   });
 });

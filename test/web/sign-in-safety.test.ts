@@ -1,27 +1,14 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sqliteFactory } from '../helpers/stores.ts';
-import { ORIGIN, cookiesFrom, csrfFrom, demoPassword, seededApp, signIn } from '../helpers/web.ts';
+import { describe, expect, it } from 'vitest';
+import { ORIGIN, cookiesFrom, csrfFrom, demoPassword, useSeededApp, signIn } from '../helpers/web.ts';
 import { ABSOLUTE_TIMEOUT_MS, IDLE_TIMEOUT_MS } from '../../src/web/middleware/session.ts';
 import { MAX_FAILURES_PER_ACCOUNT, MAX_FAILURES_PER_ADDRESS } from '../../src/auth/throttle.ts';
-import type { Store } from '../../src/store/connect.ts';
 
-const factory = sqliteFactory();
-let store: Store;
-let app: Awaited<ReturnType<typeof seededApp>>;
-
-beforeAll(async () => {
-  store = await factory.open();
-  app = await seededApp(store);
-});
-afterAll(async () => {
-  await store.close();
-  await factory.cleanup();
-});
+const fixture = useSeededApp();
 
 async function attempt(username: string, password: string) {
-  const page = await app.request('/login');
+  const page = await fixture.app.request('/login');
   const cookie = cookiesFrom(page);
-  return app.request('/login', {
+  return fixture.app.request('/login', {
     method: 'POST',
     headers: { cookie, origin: ORIGIN, 'content-type': 'application/x-www-form-urlencoded' },
     body: new URLSearchParams({ username, password, _csrf: csrfFrom(await page.text()) }),
@@ -37,23 +24,23 @@ describe('sign-in throttling', () => {
     // other accounts still sign in
     expect((await attempt('reviewer', demoPassword('reviewer'))).status).toBe(303);
     // the pause ends when the failures age out of the window
-    await store.db.updateTable('login_failures').set({ at: new Date(Date.now() - 16 * 60 * 1000).toISOString() }).execute();
+    await fixture.store.db.updateTable('login_failures').set({ at: new Date(Date.now() - 16 * 60 * 1000).toISOString() }).execute();
     expect((await attempt('reviewer2', demoPassword('reviewer2'))).status).toBe(303);
   });
 
   it(`pauses an address after ${MAX_FAILURES_PER_ADDRESS} failures across accounts`, async () => {
-    await store.db.deleteFrom('login_failures').execute();
+    await fixture.store.db.deleteFrom('login_failures').execute();
     for (let i = 0; i < MAX_FAILURES_PER_ADDRESS; i++) await attempt(`nobody${i}`, 'x');
     const paused = await attempt('adjudicator', demoPassword('adjudicator'));
     expect(paused.status).toBe(429);
     expect(await paused.text()).toContain('for your network address');
-    await store.db.deleteFrom('login_failures').execute();
+    await fixture.store.db.deleteFrom('login_failures').execute();
   });
 
   it('refuses a disabled account', async () => {
-    await store.db.updateTable('users').set({ disabled: 1 }).where('username', '=', 'data').execute();
+    await fixture.store.db.updateTable('users').set({ disabled: 1 }).where('username', '=', 'data').execute();
     expect((await attempt('data', demoPassword('data'))).status).toBe(401);
-    await store.db.updateTable('users').set({ disabled: 0 }).where('username', '=', 'data').execute();
+    await fixture.store.db.updateTable('users').set({ disabled: 0 }).where('username', '=', 'data').execute();
   });
 });
 
@@ -64,14 +51,14 @@ describe('session timeouts', () => {
   ];
   for (const [name, change] of cases) {
     it(`ends a session ${name}`, async () => {
-      const { cookie } = await signIn(app, 'policy');
-      expect((await app.request('/rubrics', { headers: { cookie } })).status).toBe(200);
-      const before = await store.db.selectFrom('sessions').select('id').execute();
-      await store.db.updateTable('sessions').set(change).execute();
-      const res = await app.request('/rubrics', { headers: { cookie } });
+      const { cookie } = await signIn(fixture.app, 'policy');
+      expect((await fixture.app.request('/rubrics', { headers: { cookie } })).status).toBe(200);
+      const before = await fixture.store.db.selectFrom('sessions').select('id').execute();
+      await fixture.store.db.updateTable('sessions').set(change).execute();
+      const res = await fixture.app.request('/rubrics', { headers: { cookie } });
       expect(res.status).toBe(303);
       expect(res.headers.get('location')).toBe('/login?next=%2Frubrics');
-      expect((await store.db.selectFrom('sessions').select('id').execute()).length).toBeLessThan(before.length);
+      expect((await fixture.store.db.selectFrom('sessions').select('id').execute()).length).toBeLessThan(before.length);
     });
   }
 });
