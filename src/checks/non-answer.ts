@@ -29,6 +29,19 @@ function jaccard(a: Set<string>, b: Set<string>): number {
   return union ? shared / union : 0;
 }
 
+/** Does `text[start, end)` end in a question mark, white space aside? */
+function endsWithQuestionMark(text: string, start: number, end: number): boolean {
+  let i = end - 1;
+  while (i >= start && /\s/.test(text[i])) i--;
+  return i >= start && text[i] === '?';
+}
+
+/** The lower-case first word of a token range, if any. */
+function firstWord(doc: Doc, from: number, to: number): string | undefined {
+  for (let i = from; i < to; i++) if (isWord(doc.tokens[i])) return doc.tokens[i].lower;
+  return undefined;
+}
+
 /**
  * Non-answers: an empty response; one too short to answer; one that continues the prompt instead
  * of answering it (it echoes the prompt's shape, typically as further questions of the same kind);
@@ -68,10 +81,10 @@ export const nonAnswer = defineCheck<{ minWords: number; minSimilarity: number; 
     let echoing = 0;
     const echoes: { start: number; end: number }[] = [];
     for (const s of doc.sentences) {
+      const sameShape = (promptIsQuestion && endsWithQuestionMark(doc.text, s.start, s.end)) || (promptOpening !== undefined && firstWord(doc, s.firstToken, s.endToken) === promptOpening);
+      if (!sameShape) continue;
       const stems = new Set(contentStems(doc, s.firstToken, s.endToken));
-      const text = doc.text.slice(s.start, s.end);
-      const sameShape = (promptIsQuestion && /\?\s*$/.test(text)) || (promptOpening !== undefined && doc.tokens.slice(s.firstToken, s.endToken).find(isWord)?.lower === promptOpening);
-      if (sameShape && stems.size && jaccard(stems, promptSet) >= params.echoSimilarity) {
+      if (stems.size && jaccard(stems, promptSet) >= params.echoSimilarity) {
         echoing++;
         echoes.push(s);
       }

@@ -27,22 +27,52 @@ function ngramIds(ws: Token[], maxN: number): { levels: Int32Array[]; distinct: 
   });
   const levels = [new Int32Array(0), first];
   const distinct = [0, words.size];
-  const vocabulary = Math.max(1, words.size);
   for (let n = 2; n <= maxN; n++) {
     const previous = levels[n - 1];
     const count = Math.max(0, ws.length - n + 1);
     const ids = new Int32Array(count);
-    const dense = new Map<number, number>();
-    for (let i = 0; i < count; i++) {
-      const key = previous[i] * vocabulary + first[i + n - 1];
-      let id = dense.get(key);
-      if (id === undefined) dense.set(key, (id = dense.size));
-      ids[i] = id;
-    }
+    const dense = new PairIds(count);
+    for (let i = 0; i < count; i++) ids[i] = dense.idOf(previous[i], first[i + n - 1]);
     levels.push(ids);
     distinct.push(dense.size);
   }
   return { levels, distinct };
+}
+
+/**
+ * Dense ids for pairs of small integers, in an open-addressing table sized for `capacity`
+ * pairs: the n-gram levels' inner loop, where a Map keyed by numbers would dominate the cost.
+ */
+class PairIds {
+  private readonly keysA: Int32Array;
+  private readonly keysB: Int32Array;
+  private readonly values: Int32Array;
+  private readonly mask: number;
+  size = 0;
+
+  constructor(capacity: number) {
+    let slots = 16;
+    while (slots < capacity * 2) slots *= 2;
+    this.keysA = new Int32Array(slots).fill(-1);
+    this.keysB = new Int32Array(slots);
+    this.values = new Int32Array(slots);
+    this.mask = slots - 1;
+  }
+
+  idOf(a: number, b: number): number {
+    let slot = (Math.imul(a, 0x9e3779b1) ^ Math.imul(b, 0x85ebca6b)) & this.mask;
+    for (;;) {
+      const key = this.keysA[slot];
+      if (key === -1) {
+        this.keysA[slot] = a;
+        this.keysB[slot] = b;
+        this.values[slot] = this.size;
+        return this.size++;
+      }
+      if (key === a && this.keysB[slot] === b) return this.values[slot];
+      slot = (slot + 1) & this.mask;
+    }
+  }
 }
 
 /** The most frequent id, where it occurs, and the share of word characters its occurrences cover (Rae et al. 2021). */

@@ -199,8 +199,18 @@ export function analyze(text: string, context: AnalysisContext = {}): Doc {
   return doc;
 }
 
-const EDGE_START = /^[\s"“”‘(\[{.,;:!?'’]+/;
-const EDGE_END = /[\s"“”’)\]}.,;:!?]+$/;
+const EDGE_START_CHARS = new Set('"“”‘([{.,;:!?\'’');
+const EDGE_END_CHARS = new Set('"“”’)]}.,;:!?');
+const SPACE = /\s/;
+
+/** Characters left out at a word's start (punctuation, quotes, apostrophes, white space). */
+function edgeStart(ch: string): boolean {
+  return EDGE_START_CHARS.has(ch) || SPACE.test(ch);
+}
+
+function edgeEnd(ch: string): boolean {
+  return EDGE_END_CHARS.has(ch) || SPACE.test(ch);
+}
 
 /** Groups tokens not separated by white space into words and normalises each (see `MatchWord`). */
 function matchWords(text: string, tokens: Token[]): MatchWord[] {
@@ -210,13 +220,16 @@ function matchWords(text: string, tokens: Token[]): MatchWord[] {
     if (runStart < 0) return;
     const first = runStart;
     runStart = -1;
-    const raw = text.slice(tokens[first].start, tokens[last].end);
-    const lead = raw.match(EDGE_START)?.[0].length ?? 0;
-    const trail = raw.slice(lead).match(EDGE_END)?.[0].length ?? 0;
-    if (lead + trail >= raw.length) return;
-    const core = raw.slice(lead, raw.length - trail);
-    const norm = core.toLowerCase().replace(/’/g, "'");
-    words.push({ norm, head: norm.slice(0, 2), start: tokens[first].start + lead, end: tokens[last].end - trail, firstToken: first, lastToken: last, sentence: tokens[first].sentence });
+    const from = tokens[first].start;
+    const to = tokens[last].end;
+    let start = from;
+    let end = to;
+    while (start < end && edgeStart(text[start])) start++;
+    while (end > start && edgeEnd(text[end - 1])) end--;
+    if (start >= end) return;
+    const lower = first === last && start === from && end === to ? tokens[first].lower : text.slice(start, end).toLowerCase();
+    const norm = lower.includes('’') ? lower.replace(/’/g, "'") : lower;
+    words.push({ norm, head: norm.slice(0, 2), start, end, firstToken: first, lastToken: last, sentence: tokens[first].sentence });
   };
   for (let i = 0; i < tokens.length; i++) {
     const t = tokens[i];
@@ -244,13 +257,25 @@ function shieldLongRuns(text: string): { read: string; runs: { at: number; start
   const runs: { at: number; start: number; end: number }[] = [];
   let read = '';
   let last = 0;
-  for (const m of text.matchAll(new RegExp(`\\S{${LONG_RUN},}`, 'g'))) {
-    read += text.slice(last, m.index);
-    runs.push({ at: read.length, start: m.index!, end: m.index! + m[0].length });
-    read += 'x';
-    last = m.index! + m[0].length;
+  let runFrom = 0;
+  // one pass over the character codes: a run is broken by any white space character
+  for (let i = 0; i <= text.length; i++) {
+    if (i < text.length && !isSpaceCode(text.charCodeAt(i))) continue;
+    if (i - runFrom >= LONG_RUN) {
+      read += text.slice(last, runFrom);
+      runs.push({ at: read.length, start: runFrom, end: i });
+      read += 'x';
+      last = i;
+    }
+    runFrom = i + 1;
   }
   return runs.length ? { read: read + text.slice(last), runs } : { read: text, runs };
+}
+
+/** The characters JavaScript's `\s` matches. */
+function isSpaceCode(c: number): boolean {
+  if (c < 128) return c === 32 || (c >= 9 && c <= 13);
+  return c === 0xa0 || c === 0x1680 || (c >= 0x2000 && c <= 0x200a) || c === 0x2028 || c === 0x2029 || c === 0x202f || c === 0x205f || c === 0x3000 || c === 0xfeff;
 }
 
 /** Analyses a prompt and its responses once each, giving every response the others as siblings. */

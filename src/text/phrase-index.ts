@@ -2,11 +2,13 @@ import type { Doc, MatchWord } from './analyze.ts';
 
 /** A phrase's words, normalised; the last (or only) word may be a prefix (`ventilat*`). */
 interface Entry {
+  /** The list (PhraseIndex) the phrase belongs to. */
+  list: number;
   words: string[];
   prefixLast: boolean;
 }
 
-const NONE: readonly never[] = [];
+type Matches = [number, number][];
 
 const PUNCTUATION_EDGES = /^[\s"“”‘(\[{.,;:!?]+|[\s"“”’)\]}.,;:!?]+$/g;
 
@@ -15,98 +17,159 @@ export function normaliseWord(word: string): string {
   return word.toLowerCase().replace(/’/g, "'").replace(PUNCTUATION_EDGES, '');
 }
 
+function entriesOf(phrases: readonly string[], list: number): Entry[] {
+  const entries: Entry[] = [];
+  for (const phrase of phrases) {
+    const prefixLast = phrase.trim().endsWith('*');
+    const words = phrase.trim().replace(/\*$/, '').split(/\s+/).map(normaliseWord).filter(Boolean);
+    if (words.length) entries.push({ list, words, prefixLast });
+  }
+  return entries;
+}
+
+/** Does `entry` match at word `i`? Returns the index of its last word, or −1. Never crosses a sentence. */
+function matchAt(words: readonly MatchWord[], i: number, entry: Entry): number {
+  const n = entry.words.length;
+  if (i + n > words.length) return -1;
+  const sentence = words[i].sentence;
+  for (let k = 0; k < n; k++) {
+    const w = words[i + k];
+    if (w.sentence !== sentence) return -1;
+    const want = entry.words[k];
+    if (k === n - 1 && entry.prefixLast ? !w.norm.startsWith(want) : w.norm !== want) return -1;
+  }
+  return i + n - 1;
+}
+
 /**
- * Phrases compiled for matching against a document's words (`doc.words`): a map from first word
- * to phrases, plus phrases whose first word is a prefix. Matching is linear in the words and does
- * not depend on how many phrases there are. Punctuation between words is ignored, so
- * "I am sorry, but I" matches the phrase "i am sorry but i".
+ * Phrases of many lists compiled into one index: a map from first word to phrases, plus
+ * single-word prefix phrases by their first two letters. One pass over a document's words finds
+ * the matches of every list at once, so adding a list costs a few map entries rather than
+ * another pass. Per list, matches are longest first at each start and do not overlap.
+ */
+class PhraseBank {
+  private readonly byFirst = new Map<string, Entry[]>();
+  private readonly prefixFirst = new Map<string, Entry[]>();
+  lists = 0;
+
+  add(entries: Entry[]): void {
+    for (const entry of entries) {
+      const single = entry.prefixLast && entry.words.length === 1;
+      const map = single ? this.prefixFirst : this.byFirst;
+      const key = single ? entry.words[0].slice(0, 2) : entry.words[0];
+      const list = map.get(key);
+      if (list) list.push(entry);
+      else map.set(key, [entry]);
+    }
+    this.lists++;
+  }
+
+  /** Matches of each list in `words`, indexed by list number: [first word, last word] pairs. */
+  scan(words: readonly MatchWord[]): Matches[] {
+    const lists = this.lists;
+    const out: Matches[] = Array.from({ length: lists }, () => []);
+    const nextFree = new Int32Array(lists);
+    const best = new Int32Array(lists).fill(-1);
+    const touched: number[] = [];
+    const consider = (i: number, entry: Entry, last: number) => {
+      if (last < 0 || i < nextFree[entry.list]) return;
+      if (best[entry.list] < 0) touched.push(entry.list);
+      if (last > best[entry.list]) best[entry.list] = last;
+    };
+    for (let i = 0; i < words.length; i++) {
+      const w = words[i];
+      const entries = this.byFirst.get(w.norm);
+      if (entries) for (const entry of entries) if (i >= nextFree[entry.list]) consider(i, entry, matchAt(words, i, entry));
+      const prefixes = this.prefixFirst.size ? this.prefixFirst.get(w.head) : undefined;
+      if (prefixes) for (const entry of prefixes) if (w.norm.startsWith(entry.words[0])) consider(i, entry, i);
+      if (!touched.length) continue;
+      for (const list of touched) {
+        out[list].push([i, best[list]]);
+        nextFree[list] = best[list] + 1;
+        best[list] = -1;
+      }
+      touched.length = 0;
+    }
+    return out;
+  }
+}
+
+/** Lists a bank takes; lists beyond it (rubrics can make many) get a bank of their own. */
+const SHARED_LISTS = 256;
+
+const shared = new PhraseBank();
+const scans = new WeakMap<readonly MatchWord[], { lists: number; matches: Matches[] }>();
+
+/** Every shared list's matches in `words`, scanned once; rescanned if lists were added since. */
+function sharedMatches(words: readonly MatchWord[]): Matches[] {
+  let scan = scans.get(words);
+  if (!scan || scan.lists !== shared.lists) {
+    scan = { lists: shared.lists, matches: shared.scan(words) };
+    scans.set(words, scan);
+  }
+  return scan.matches;
+}
+
+/**
+ * A phrase list compiled for matching against a document's words (`doc.words`). Matching does
+ * not depend on how many phrases there are, and a document is scanned once for every list in
+ * the shared bank. Punctuation between words is ignored, so "I am sorry, but I" matches the
+ * phrase "i am sorry but i".
  */
 export class PhraseIndex {
-  private readonly byFirst = new Map<string, Entry[]>();
-  /** Single-word prefix phrases, by their first two letters. */
-  private readonly prefixFirst = new Map<string, { prefix: string; entry: Entry }[]>();
-  private readonly cache = new WeakMap<readonly MatchWord[], [number, number][]>();
+  private readonly bank: PhraseBank;
+  private readonly list: number;
+  private readonly own = new WeakMap<readonly MatchWord[], Matches>();
+  private readonly spans = new WeakMap<readonly MatchWord[], { start: number; end: number }[]>();
   readonly size: number;
 
   constructor(phrases: readonly string[]) {
-    let size = 0;
-    for (const phrase of phrases) {
-      const prefixLast = phrase.trim().endsWith('*');
-      const words = phrase.trim().replace(/\*$/, '').split(/\s+/).map(normaliseWord).filter(Boolean);
-      if (!words.length) continue;
-      size++;
-      const entry = { words, prefixLast };
-      if (prefixLast && words.length === 1) {
-        const head = words[0].slice(0, 2);
-        const list = this.prefixFirst.get(head);
-        if (list) list.push({ prefix: words[0], entry });
-        else this.prefixFirst.set(head, [{ prefix: words[0], entry }]);
-      }
-      else {
-        const list = this.byFirst.get(words[0]);
-        if (list) list.push(entry);
-        else this.byFirst.set(words[0], [entry]);
-      }
-    }
-    this.size = size;
+    const useShared = shared.lists < SHARED_LISTS;
+    this.bank = useShared ? shared : new PhraseBank();
+    this.list = useShared ? shared.lists : 0;
+    const entries = entriesOf(phrases, this.list);
+    this.size = entries.length;
+    this.bank.add(entries);
   }
 
-  /**
-   * Every match in `words[from, to)`, longest first at each start, not overlapping. A match never
-   * crosses a sentence boundary. Returns [first word index, last word index] pairs.
-   */
-  matchWords(words: readonly MatchWord[], from = 0, to = words.length): [number, number][] {
-    const whole = from === 0 && to === words.length;
-    const cached = whole ? this.cache.get(words) : undefined;
-    if (cached) return cached;
-    const out: [number, number][] = [];
-    const prefixes = this.prefixFirst.size > 0;
-    for (let i = from; i < to; i++) {
-      const w = words[i];
-      let best = -1;
-      const entries = this.byFirst.get(w.norm);
-      if (entries) {
-        for (const entry of entries) {
-          const last = this.matchAt(words, i, to, entry);
-          if (last > best) best = last;
-        }
-      }
-      if (best < i && prefixes) for (const p of this.prefixFirst.get(w.head) ?? NONE) if (w.norm.startsWith(p.prefix)) best = i;
-      if (best >= i) {
-        out.push([i, best]);
-        i = best;
-      }
+  /** Every match in `words`, longest first at each start, not overlapping, never across a sentence: [first word, last word] pairs. */
+  matchWords(words: readonly MatchWord[]): Matches {
+    if (this.bank === shared) return sharedMatches(words)[this.list];
+    let matches = this.own.get(words);
+    if (!matches) {
+      matches = this.bank.scan(words)[0];
+      this.own.set(words, matches);
     }
-    if (whole) this.cache.set(words, out);
-    return out;
-  }
-
-  private matchAt(words: readonly MatchWord[], i: number, to: number, entry: Entry): number {
-    const n = entry.words.length;
-    if (i + n > to) return -1;
-    const sentence = words[i].sentence;
-    for (let k = 0; k < n; k++) {
-      const w = words[i + k];
-      if (w.sentence !== sentence) return -1;
-      const want = entry.words[k];
-      if (k === n - 1 && entry.prefixLast ? !w.norm.startsWith(want) : w.norm !== want) return -1;
-    }
-    return i + n - 1;
+    return matches;
   }
 
   /** Matches in a document as character spans of the original text. */
   find(doc: Doc): { start: number; end: number }[] {
-    return this.matchWords(doc.words).map(([a, b]) => ({ start: doc.words[a].start, end: doc.words[b].end }));
+    let spans = this.spans.get(doc.words);
+    if (!spans) {
+      spans = this.matchWords(doc.words).map(([a, b]) => ({ start: doc.words[a].start, end: doc.words[b].end }));
+      this.spans.set(doc.words, spans);
+    }
+    return spans;
   }
 }
 
 const compiled = new WeakMap<readonly string[], PhraseIndex>();
+const byContent = new Map<string, PhraseIndex>();
 
-/** The index for a phrase list, built once per list object. */
+/**
+ * The index for a phrase list, built once per list object and shared by lists with the same
+ * phrases (a rubric that repeats a default list, or is loaded again, adds nothing to the bank).
+ */
 export function phraseIndex(phrases: readonly string[]): PhraseIndex {
   let index = compiled.get(phrases);
   if (!index) {
-    index = new PhraseIndex(phrases);
+    const key = phrases.join('\n');
+    index = byContent.get(key);
+    if (!index) {
+      index = new PhraseIndex(phrases);
+      if (byContent.size < 4096) byContent.set(key, index);
+    }
     compiled.set(phrases, index);
   }
   return index;
