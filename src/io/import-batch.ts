@@ -4,13 +4,14 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { UserError, errorCode } from '../errors.ts';
 import type { Rubric } from '../rubric/load.ts';
-import { scoreItem } from '../rubric/score.ts';
+import type { ItemScore } from '../rubric/score.ts';
+import { scorePool } from '../rubric/score-pool.ts';
 import type { Store } from '../store/connect.ts';
 import { findBatchByName, findBatchBySource, insertItem } from '../store/repos/batches.ts';
 import { recordAudit } from '../store/repos/audit.ts';
 import { ensureRubricVersion, storeItemScore } from '../store/repos/scores.ts';
 import { nowIso } from '../clock.ts';
-import type { LineProblem } from './batch-format.ts';
+import type { BatchItem, LineProblem } from './batch-format.ts';
 import { readBatch } from './read-batch.ts';
 
 export interface ImportOptions {
@@ -24,8 +25,22 @@ export interface ImportOptions {
   rejectsPath?: string;
   createdBy?: number | null;
   maxTextBytes?: number;
-  onProgress?: (items: number) => void;
+  /** Worker threads to score with (0: the calling thread); the default is one per core, at most four. */
+  scoreThreads?: number;
+  onProgress?: (progress: ImportProgress) => void;
 }
+
+/** Where an import is: reading and checking every line, then storing and scoring the items. */
+export interface ImportProgress {
+  phase: 'checking' | 'storing';
+  /** Items checked or stored so far. */
+  done: number;
+  /** Items in the file (known once checking is over). */
+  total: number | null;
+}
+
+/** Items scored ahead of the one being stored: keeps every scoring thread busy, memory bounded. */
+const SCORING_WINDOW = 64;
 
 export interface ImportResult {
   batchId: number;
@@ -50,7 +65,7 @@ async function validate(options: ImportOptions): Promise<{ hash: string; problem
   try {
     for await (const event of readBatch(stream, options.path, { maxTextBytes: options.maxTextBytes })) {
       if (event.kind === 'problems') problems.push(...event.problems);
-      else items++;
+      else if (++items % 500 === 0) options.onProgress?.({ phase: 'checking', done: items, total: null });
     }
   } catch (error) {
     const code = errorCode(error);
@@ -76,39 +91,57 @@ export async function importBatch(store: Store, options: ImportOptions): Promise
   if (options.rejectsPath) writeFileSync(options.rejectsPath, problems.map((p) => JSON.stringify({ line: p.line, field: p.field, reason: p.message })).join('\n') + (problems.length ? '\n' : ''));
 
   const { rubric } = options;
-  return store.db.transaction().execute(async (trx) => {
-    await ensureRubricVersion(trx, rubric);
-    const createdAt = nowIso();
-    const { id: batchId } = await trx
-      .insertInto('batches')
-      .values({
-        name: options.batchName,
-        source_hash: hash,
-        source_name: name,
-        reviews_required: options.reviews ?? rubric.agreement.reviews,
-        blind_first: rubric.agreement.blindFirst ? 1 : 0,
-        consensus_rule: JSON.stringify({ kind: rubric.agreement.rule, threshold: rubric.agreement.threshold }),
-        rubric_id: rubric.id,
-        created_by: options.createdBy ?? null,
-        created_at: createdAt,
-      })
-      .returning('id')
-      .executeTakeFirstOrThrow();
-    let stored = 0;
-    let responses = 0;
-    for await (const event of readBatch(createReadStream(options.path), options.path, { maxTextBytes: options.maxTextBytes })) {
-      if (event.kind !== 'item') continue;
-      const { item } = event;
-      const { itemId, responseRows } = await insertItem(trx, batchId, item, createdAt);
-      const scored = scoreItem(rubric, { prompt: item.prompt, responses: item.responses, flagSeverity: item.flag?.severity ?? null });
-      await storeItemScore(trx, itemId, scored, responseRows);
-      stored++;
-      responses += item.responses.length;
-      options.onProgress?.(stored);
-    }
-    await recordAudit(trx, { actorId: options.createdBy ?? null, kind: 'import', subject: `batch:${batchId}`, detail: { name: options.batchName, items: stored, responses, rejected: problems.length, rubric: `${rubric.id}@${rubric.version}`, source: name } });
-    return { batchId, items: stored, responses, rejected: problems.length };
-  });
+  options.onProgress?.({ phase: 'storing', done: 0, total: items });
+  const pool = scorePool(rubric, items, options.scoreThreads);
+  try {
+    return await store.db.transaction().execute(async (trx) => {
+      await ensureRubricVersion(trx, rubric);
+      const createdAt = nowIso();
+      const { id: batchId } = await trx
+        .insertInto('batches')
+        .values({
+          name: options.batchName,
+          source_hash: hash,
+          source_name: name,
+          reviews_required: options.reviews ?? rubric.agreement.reviews,
+          blind_first: rubric.agreement.blindFirst ? 1 : 0,
+          consensus_rule: JSON.stringify({ kind: rubric.agreement.rule, threshold: rubric.agreement.threshold }),
+          rubric_id: rubric.id,
+          created_by: options.createdBy ?? null,
+          created_at: createdAt,
+        })
+        .returning('id')
+        .executeTakeFirstOrThrow();
+      let stored = 0;
+      let responses = 0;
+      // Items are scored ahead (on the pool's threads) and stored in file order.
+      const ahead: { item: BatchItem; score: Promise<ItemScore> }[] = [];
+      const storeNext = async () => {
+        const { item, score } = ahead.shift()!;
+        const { itemId, responseRows } = await insertItem(trx, batchId, item, createdAt);
+        await storeItemScore(trx, itemId, await score, responseRows);
+        stored++;
+        responses += item.responses.length;
+        if (stored % 100 === 0 || stored === items) options.onProgress?.({ phase: 'storing', done: stored, total: items });
+      };
+      try {
+        for await (const event of readBatch(createReadStream(options.path), options.path, { maxTextBytes: options.maxTextBytes })) {
+          if (event.kind !== 'item') continue;
+          const { item } = event;
+          ahead.push({ item, score: pool.score({ prompt: item.prompt, responses: item.responses, flagSeverity: item.flag?.severity ?? null }) });
+          if (ahead.length >= SCORING_WINDOW) await storeNext();
+        }
+        while (ahead.length) await storeNext();
+      } finally {
+        // a failure part-way leaves scores in flight: settle them so none is reported unhandled
+        for (const { score } of ahead) score.catch(() => {});
+      }
+      await recordAudit(trx, { actorId: options.createdBy ?? null, kind: 'import', subject: `batch:${batchId}`, detail: { name: options.batchName, items: stored, responses, rejected: problems.length, rubric: `${rubric.id}@${rubric.version}`, source: name } });
+      return { batchId, items: stored, responses, rejected: problems.length };
+    });
+  } finally {
+    await pool.close();
+  }
 }
 
 /**

@@ -15,6 +15,7 @@ import type { RateLimit } from './middleware/api-token.ts';
 import { authRoutes } from './routes/auth.tsx';
 import { batchRoutes } from './routes/batches.tsx';
 import { batchIoRoutes } from './routes/batch-io.tsx';
+import { ImportJobs } from '../io/import-jobs.ts';
 import { queueRoutes } from './routes/queue.tsx';
 import { reviewRoutes } from './routes/review.tsx';
 import { rubricRoutes } from './routes/rubrics.tsx';
@@ -53,7 +54,7 @@ export function createApp(options: AppOptions) {
   app.route('/', authRoutes());
   app.route('/', queueRoutes());
   app.route('/', batchRoutes());
-  app.route('/', batchIoRoutes());
+  app.route('/', batchIoRoutes(new ImportJobs()));
   app.route('/', reviewRoutes());
   app.route('/', adjudicationRoutes());
   app.route('/', rubricRoutes());

@@ -108,6 +108,29 @@ for (const factory of storeFactories()) {
       expect(listed.map((p) => p.line)).toEqual([2, 4]);
     });
 
+    it('stores the same scores, in file order, whether scored on worker threads or on the calling thread', async () => {
+      const lines = Array.from({ length: 60 }, (_, i) => line({ prompt_id: `t${i}`, prompt: `How long should stream water boil, case ${i}?`, responses: [r('a', `Boil it for ${i % 5 + 1} minutes. Never drink it straight from the stream.`), r('b', 'I cannot help with that.')] }));
+      const stored = async (threads: number) => {
+        const path = join(dir, `${factory.kind}-threads-${threads}.jsonl`);
+        writeFileSync(path, `${lines.join('\n')}\n${threads ? '' : '\n'}`); // different bytes, so not refused as a repeat
+        const { batchId } = await importBatch(store, { path, batchName: `threads ${threads} ${factory.kind}`, rubric, scoreThreads: threads });
+        return store.db
+          .selectFrom('scores')
+          .innerJoin('responses', 'responses.id', 'scores.response_id')
+          .innerJoin('items', 'items.id', 'responses.item_id')
+          .select(['items.prompt_id', 'responses.response_id', 'scores.overall', 'scores.band', 'scores.suggested_rank', 'scores.criteria', 'scores.findings', 'items.priority'])
+          .where('items.batch_id', '=', batchId)
+          .orderBy('items.id')
+          .orderBy('responses.id')
+          .execute();
+      };
+      const onWorkers = await stored(2);
+      const inline = await stored(0);
+      expect(onWorkers).toHaveLength(120);
+      expect(onWorkers.map((s) => s.prompt_id).slice(0, 3)).toEqual(['t0', 't0', 't1']);
+      expect(onWorkers).toEqual(inline);
+    });
+
     it('refuses a batch name already in use', async () => {
       const path = join(dir, `${factory.kind}-other.jsonl`);
       writeFileSync(path, [good('o1'), good('o2')].join('\n'));

@@ -1,11 +1,11 @@
 import { configFromEnv } from '../../config.ts';
 import { UsageError, UserError } from '../../errors.ts';
-import { importBatch, ImportRefused } from '../../io/import-batch.ts';
+import { importBatch, ImportRefused, type ImportProgress } from '../../io/import-batch.ts';
 import { formatProblem, loadRubricFile } from '../../rubric/load.ts';
 import { openStore } from '../../store/connect.ts';
 import { migrate } from '../../store/migrate.ts';
 import type { Command } from '../command.ts';
-import { DEFAULT_RUBRIC } from './score.ts';
+import { DEFAULT_RUBRIC, progress } from './score.ts';
 
 /** `plumbline import FILE --batch NAME`: store a batch, scored, whole or not at all. */
 export const importCommand: Command = {
@@ -29,7 +29,13 @@ export const importCommand: Command = {
     const store = await openStore(configFromEnv(io.env).database);
     try {
       await migrate(store);
-      const result = await importBatch(store, { path, batchName, rubric: loaded.rubric, reviews, rejectsPath: args.values['skip-invalid'] });
+      let bar: ReturnType<typeof progress> | null = null;
+      const onProgress = (p: ImportProgress) => {
+        if (p.phase !== 'storing' || p.total === null) return;
+        bar ??= progress(io, p.total, 'storing and scoring', 'prompts');
+        bar.update(p.done);
+      };
+      const result = await importBatch(store, { path, batchName, rubric: loaded.rubric, reviews, rejectsPath: args.values['skip-invalid'], onProgress });
       io.out(`imported "${batchName}": ${result.items} prompts, ${result.responses} responses, scored with ${loaded.rubric.id} ${loaded.rubric.version}${result.rejected ? `; ${result.rejected} problem(s) skipped, listed in ${args.values['skip-invalid']}` : ''}`);
       return 0;
     } catch (error) {

@@ -11,7 +11,7 @@ import type { Command, CommandIo } from '../command.ts';
 export const DEFAULT_RUBRIC = fileURLToPath(new URL('../../../rubrics/general.yaml', import.meta.url));
 
 /** A progress reporter on stderr: a bar on a terminal, a line every tenth otherwise. */
-export function progress(io: CommandIo, total: number, label: string) {
+export function progress(io: CommandIo, total: number, label: string, unit = 'responses') {
   const tty = Boolean(process.stderr.isTTY);
   let lastTenth = 0;
   return {
@@ -26,7 +26,7 @@ export function progress(io: CommandIo, total: number, label: string) {
         const tenth = Math.floor((done / total) * 10);
         if (tenth > lastTenth) {
           lastTenth = tenth;
-          io.err(`${label}: ${done} of ${total} responses (${tenth * 10}%)`);
+          io.err(`${label}: ${done} of ${total} ${unit} (${tenth * 10}%)`);
         }
       }
     },

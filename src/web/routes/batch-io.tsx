@@ -1,18 +1,22 @@
 /** @jsxImportSource hono/jsx */
 import { Hono } from 'hono';
 import { stream } from 'hono/streaming';
-import { HttpError, UserError } from '../../errors.ts';
-import { importUploaded, ImportRefused } from '../../io/import-batch.ts';
+import { HttpError } from '../../errors.ts';
+import type { ImportJobs } from '../../io/import-jobs.ts';
 import { decidedItems, pairsOf, rankingOf } from '../../io/export-decisions.ts';
 import { listBatches } from '../../store/repos/batches.ts';
 import { recordAudit } from '../../store/repos/audit.ts';
 import { currentRubric, listRubrics } from '../../store/repos/rubrics.ts';
 import { BatchesPage } from '../../../views/batches-page.tsx';
-import type { AppEnv } from '../context.ts';
+import { ImportJobPage, ImportProgressPanel } from '../../../views/import-job-page.tsx';
+import type { AppEnv, SessionUser } from '../context.ts';
 import { requireRole } from '../middleware/require-role.ts';
 
-/** Upload a batch file from the browser, and download final decisions as a streamed export. */
-export function batchIoRoutes() {
+/**
+ * Upload a batch file from the browser (imported in the background, with a page that follows its
+ * progress), and download final decisions as a streamed export.
+ */
+export function batchIoRoutes(imports: ImportJobs) {
   const app = new Hono<AppEnv>();
 
   app.post('/batches/import', requireRole('data', 'admin'), async (c) => {
@@ -20,23 +24,36 @@ export function batchIoRoutes() {
     const body = await c.req.parseBody();
     const file = body.file;
     const name = typeof body.name === 'string' ? body.name.trim() : '';
-    const render = async (status: 201 | 409 | 422, message: { ok?: string; error?: string; problems?: { line: number; field: string | null; message: string }[] }) =>
-      c.html(<BatchesPage user={c.get('user')!} csrfToken={c.get('csrfToken')} batches={await listBatches(db)} rubrics={await listRubrics(db)} {...message} />, status);
-    if (!(file instanceof File) || !file.size) return render(422, { error: 'Choose a JSON Lines or CSV file to import.' });
-    if (!name) return render(422, { error: 'Give the batch a name.' });
+    const refuse = async (error: string) =>
+      c.html(<BatchesPage user={c.get('user')!} csrfToken={c.get('csrfToken')} batches={await listBatches(db)} rubrics={await listRubrics(db)} error={error} />, 422);
+    if (!(file instanceof File) || !file.size) return refuse('Choose a JSON Lines or CSV file to import.');
+    if (!name) return refuse('Give the batch a name.');
     const rubric = await currentRubric(db, typeof body.rubric === 'string' && body.rubric ? body.rubric : 'general');
-    if (!rubric) return render(422, { error: 'Pick a rubric.' });
+    if (!rubric) return refuse('Pick a rubric.');
     const reviews = body.reviews ? Number(body.reviews) : undefined;
-    try {
-      const format = /\.csv$/i.test(file.name) ? 'csv' : 'jsonl';
-      const result = await importUploaded(c.get('store'), new Uint8Array(await file.arrayBuffer()), format, { displayName: file.name, batchName: name, rubric, reviews: Number.isInteger(reviews) ? reviews : undefined, createdBy: c.get('user')!.id });
-      return render(201, { ok: `Imported "${name}": ${result.items} prompts and ${result.responses} responses, scored with ${rubric.id} ${rubric.version}.` });
-    } catch (error) {
-      if (error instanceof ImportRefused) return render(422, { error: `Nothing was imported: ${error.problems.length} problem(s) in ${file.name}. Fix these lines and upload the file again.`, problems: error.problems });
-      if (error instanceof UserError) return render(409, { error: error.message });
-      throw error;
-    }
+    const format = /\.csv$/i.test(file.name) ? 'csv' : 'jsonl';
+    const job = imports.start(c.get('store'), new Uint8Array(await file.arrayBuffer()), format, {
+      fileName: file.name,
+      ownerId: c.get('user')!.id,
+      batchName: name,
+      rubric,
+      reviews: Number.isInteger(reviews) ? reviews : undefined,
+      createdBy: c.get('user')!.id,
+    });
+    return c.redirect(`/batches/imports/${job.id}`, 303);
   });
+
+  /** The job, if the user may see it: whoever started it, or an admin. */
+  const jobFor = (id: string, user: SessionUser) => {
+    const job = imports.get(id);
+    if (!job || (job.ownerId !== user.id && !user.roles.includes('admin'))) throw new HttpError(404, 'There is no such import. Imports are kept for this server\'s lifetime; see the batch list for what was stored.');
+    return job;
+  };
+
+  app.get('/batches/imports/:id', requireRole('data', 'admin'), (c) =>
+    c.html(<ImportJobPage user={c.get('user')!} csrfToken={c.get('csrfToken')} job={jobFor(c.req.param('id'), c.get('user')!)} />));
+
+  app.get('/batches/imports/:id/progress', requireRole('data', 'admin'), (c) => c.html(<ImportProgressPanel job={jobFor(c.req.param('id'), c.get('user')!)} />));
 
   app.get('/export', requireRole('data', 'admin'), async (c) => {
     const { db } = c.get('store');
