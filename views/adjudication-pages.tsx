@@ -43,6 +43,8 @@ export interface ReviewColumn {
 
 export function AdjudicationPage(props: {
   user: SessionUser;
+  /** Characters the rationale needs (the batch's setting). */
+  minRationale: number;
   csrfToken: string;
   itemId: number;
   promptId: string;
@@ -89,8 +91,8 @@ export function AdjudicationPage(props: {
             </li>
           ))}
         </ol>
-        <label for="rationale">Rationale for the decision (at least 20 characters)</label>
-        <textarea id="rationale" name="rationale" rows={4} required minlength={20}></textarea>
+        <label for="rationale">{`Rationale for the decision (at least ${props.minRationale} characters)`}</label>
+        <textarea id="rationale" name="rationale" rows={4} required minlength={props.minRationale}></textarea>
         <button type="submit">Record the final ranking</button>
       </form>
     </Layout>

@@ -46,6 +46,8 @@ export function BatchesPage(props: { user: SessionUser; csrfToken: string; batch
         <select id="rubric" name="rubric">{props.rubrics.map((r) => <option value={r.id} selected={r.id === 'general'}>{r.title}</option>)}</select>
         <label for="reviews">Reviews per item</label>
         <input id="reviews" name="reviews" type="number" min={1} max={5} value="1" />
+        <label for="rationale_min">Minimum rationale length (characters)</label>
+        <input id="rationale_min" name="rationale_min" type="number" min={0} max={2000} value="20" />
         <button type="submit">Import</button>
       </form>
     </Layout>

@@ -1,5 +1,6 @@
 /** @jsxImportSource hono/jsx */
-import type { QueueRow } from '../src/store/repos/queue.ts';
+import type { QueueFilter, QueueRow } from '../src/store/repos/queue.ts';
+import { BAND_NAMES, type Band } from '../src/rubric/spec.ts';
 import type { ItemState } from '../src/store/schema.ts';
 import type { SessionUser } from '../src/web/context.ts';
 import { Layout } from './layout.tsx';
@@ -14,7 +15,7 @@ const STATE_LABELS: Record<ItemState, string> = {
 };
 
 export function QueueTable({ rows }: { rows: QueueRow[] }) {
-  if (rows.length === 0) return <p class="empty">Nothing is waiting. Import a batch to fill the queue.</p>;
+  if (rows.length === 0) return <p class="empty">Nothing is waiting here. Clear the filters, or import a batch to fill the queue.</p>;
   return (
     <table class="queue">
       <caption>Items in triage order: the riskiest and most uncertain first</caption>
@@ -49,7 +50,36 @@ export function QueueTable({ rows }: { rows: QueueRow[] }) {
   );
 }
 
-export function QueuePage(props: { user: SessionUser; csrfToken: string; rows: QueueRow[]; counts: Record<ItemState, number> }) {
+const BAND_LABELS: Record<Band, string> = { pass: 'pass', review: 'needs a look', fail: 'fail' };
+
+/** The queue's filters: a plain GET form, so a filtered queue is a link that can be shared. */
+function QueueFilters(props: { filter: QueueFilter; batches: { id: number; name: string }[]; checks: readonly string[] }) {
+  const { filter } = props;
+  return (
+    <form class="filters" method="get" action="/" aria-label="Filter the queue">
+      <label for="f-batch">Batch</label>
+      <select id="f-batch" name="batch">
+        <option value="">all batches</option>
+        {props.batches.map((b) => <option value={String(b.id)} selected={filter.batchId === b.id}>{b.name}</option>)}
+      </select>
+      <label for="f-band">Any response in band</label>
+      <select id="f-band" name="band">
+        <option value="">any band</option>
+        {BAND_NAMES.map((b) => <option value={b} selected={filter.band === b}>{BAND_LABELS[b]}</option>)}
+      </select>
+      <label for="f-check">With findings of</label>
+      <select id="f-check" name="check">
+        <option value="">any check</option>
+        {props.checks.map((id) => <option value={id} selected={filter.check === id}>{id}</option>)}
+      </select>
+      <label class="inline"><input type="checkbox" name="flagged" value="1" checked={filter.flagged === true} /> flagged only</label>
+      <button type="submit">Filter</button>
+      {(filter.batchId !== undefined || filter.band || filter.check || filter.flagged) && <a href="/">Clear filters</a>}
+    </form>
+  );
+}
+
+export function QueuePage(props: { user: SessionUser; csrfToken: string; rows: QueueRow[]; counts: Record<ItemState, number>; filter: QueueFilter; batches: { id: number; name: string }[]; checks: readonly string[] }) {
   const { counts } = props;
   return (
     <Layout title="Queue" user={props.user} csrfToken={props.csrfToken}>
@@ -61,6 +91,7 @@ export function QueuePage(props: { user: SessionUser; csrfToken: string; rows: Q
         <li><strong>{counts.adjudication}</strong> need adjudication</li>
         <li><strong>{counts.final}</strong> final</li>
       </ul>
+      <QueueFilters filter={props.filter} batches={props.batches} checks={props.checks} />
       <QueueTable rows={props.rows} />
     </Layout>
   );

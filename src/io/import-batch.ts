@@ -11,6 +11,7 @@ import { findBatchByName, findBatchBySource, insertItem } from '../store/repos/b
 import { recordAudit } from '../store/repos/audit.ts';
 import { ensureRubricVersion, storeItemScore } from '../store/repos/scores.ts';
 import { nowIso } from '../clock.ts';
+import { DEFAULT_MIN_RATIONALE } from '../review/workflow.ts';
 import type { BatchItem, LineProblem } from './batch-format.ts';
 import { readBatch } from './read-batch.ts';
 
@@ -25,6 +26,8 @@ export interface ImportOptions {
   rejectsPath?: string;
   createdBy?: number | null;
   maxTextBytes?: number;
+  /** Characters a rationale needs in this batch (default 20). */
+  rationaleMin?: number;
   /** Worker threads to score with (0: the calling thread); the default is one per core, at most four. */
   scoreThreads?: number;
   onProgress?: (progress: ImportProgress) => void;
@@ -107,6 +110,7 @@ export async function importBatch(store: Store, options: ImportOptions): Promise
           blind_first: rubric.agreement.blindFirst ? 1 : 0,
           consensus_rule: JSON.stringify({ kind: rubric.agreement.rule, threshold: rubric.agreement.threshold }),
           rubric_id: rubric.id,
+          rationale_min: options.rationaleMin ?? DEFAULT_MIN_RATIONALE,
           created_by: options.createdBy ?? null,
           created_at: createdAt,
         })

@@ -112,7 +112,7 @@ export async function submitReview(store: Store, input: ReviewSubmission, option
     let locked = trx.selectFrom('items').select('items.id').where('items.id', '=', input.itemId);
     if (store.kind === 'postgres') locked = locked.forUpdate();
     await locked.executeTakeFirst();
-    const item = await trx.selectFrom('items').innerJoin('batches', 'batches.id', 'items.batch_id').select(['items.id', 'items.state', 'batches.reviews_required', 'batches.consensus_rule']).where('items.id', '=', input.itemId).executeTakeFirst();
+    const item = await trx.selectFrom('items').innerJoin('batches', 'batches.id', 'items.batch_id').select(['items.id', 'items.state', 'batches.reviews_required', 'batches.consensus_rule', 'batches.rationale_min']).where('items.id', '=', input.itemId).executeTakeFirst();
     if (!item) throw new ReviewInvalid(`there is no item ${input.itemId}`);
     if (!OPEN.includes(item.state)) throw new ReviewConflict(`this item is no longer open for review (it is ${item.state.replace('_', ' ')}); take the next one from the queue`);
     const claim = await trx.selectFrom('work_claims').select('id').where('item_id', '=', input.itemId).where('user_id', '=', input.reviewerId).where('expires_at', '>', nowIso).executeTakeFirst();
@@ -126,7 +126,7 @@ export async function submitReview(store: Store, input: ReviewSubmission, option
         const problem = rankingProblem(ranking, ids);
         if (problem) throw new ReviewInvalid(`${label}: ${problem}`);
       }
-      const min = options.minRationale ?? DEFAULT_MIN_RATIONALE;
+      const min = options.minRationale ?? Number(item.rationale_min ?? DEFAULT_MIN_RATIONALE);
       if ((input.rationale ?? '').trim().length < min) throw new ReviewInvalid(`write a rationale of at least ${min} characters: what decided the order`);
     } else if (!(input.reason ?? '').trim()) {
       throw new ReviewInvalid(`say why you ${input.status === 'skipped' ? 'skip' : 'escalate'} this item`);
@@ -167,13 +167,13 @@ export async function adjudicate(store: Store, input: { itemId: number; adjudica
   };
   try {
     await store.db.transaction().execute(async (trx) => {
-      const item = await trx.selectFrom('items').select(['state']).where('id', '=', input.itemId).executeTakeFirst();
+      const item = await trx.selectFrom('items').innerJoin('batches', 'batches.id', 'items.batch_id').select(['items.state', 'batches.rationale_min']).where('items.id', '=', input.itemId).executeTakeFirst();
       if (!item) throw new ReviewInvalid(`there is no item ${input.itemId}`);
       if (item.state === 'final') throw new AlreadyDecided(); // who decided is read after the transaction
       if (item.state !== 'adjudication' && item.state !== 'escalated') throw new ReviewConflict(`this item does not need adjudication (it is ${item.state.replace('_', ' ')})`);
       const problem = rankingProblem(input.ranking, await responseIds(trx, input.itemId));
       if (problem) throw new ReviewInvalid(`ranking: ${problem}`);
-      const min = options.minRationale ?? DEFAULT_MIN_RATIONALE;
+      const min = options.minRationale ?? Number(item.rationale_min ?? DEFAULT_MIN_RATIONALE);
       if (input.rationale.trim().length < min) throw new ReviewInvalid(`write a rationale of at least ${min} characters for the decision`);
       await insertDecision(trx, { itemId: input.itemId, adjudicatorId: input.adjudicatorId, method: 'adjudication', ranking: input.ranking, rationale: input.rationale, rubricVersion: input.rubricVersion ?? null });
       await recordAudit(trx, { actorId: input.adjudicatorId, kind: 'adjudication', subject: `item:${input.itemId}` });

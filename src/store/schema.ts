@@ -35,6 +35,8 @@ export interface BatchTable {
   rubric_id: string | null;
   created_by: number | null;
   created_at: string;
+  /** Characters a reviewer's or adjudicator's rationale needs at least. */
+  rationale_min: Generated<number>;
 }
 
 export type ItemState = 'open' | 'in_review' | 'adjudication' | 'final' | 'escalated';
@@ -52,6 +54,10 @@ export interface ItemTable {
   /** Higher is read first; computed by the triage policy. */
   priority: number;
   created_at: string;
+  /** The bands of its responses' scores, comma-delimited (",fail,pass,"); null before scoring. */
+  score_bands: string | null;
+  /** The checks with findings in its responses, comma-delimited (",refusal,repetition,"). */
+  finding_checks: string | null;
 }
 
 export interface ResponseTable {

@@ -1,3 +1,4 @@
+import { migrations } from '../../src/store/migrations/index.ts';
 import { createServer } from 'node:net';
 import { chmodSync, mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -82,6 +83,6 @@ describe('command line usage', () => {
     const before = runCli(['db', 'status'], { env: { PLUMBLINE_DB: db } });
     expect(before.code).toBe(0);
     expect(before.stdout).toMatch(/pending\s+0001-core/);
-    expect(before.stdout).toMatch(/3 pending/);
+    expect(before.stdout).toContain(`${Object.keys(migrations).length} pending`);
   });
 });

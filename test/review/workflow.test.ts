@@ -69,6 +69,10 @@ for (const factory of storeFactories()) {
         await expect(submitReview(store, review(items.A, 'r2', { a: 1, b: 2, c: 3 }, change), { now: T0 + 2000 })).rejects.toThrow(message);
       }
       await expect(submitReview(store, review(items.A, 'r2', { a: 1, b: 2, c: 3 }, { finalRanking: null }), { now: T0 + 2000 })).rejects.toBeInstanceOf(ReviewInvalid);
+      // the batch sets its own minimum: RATIONALE (47 characters) is too short for 60
+      await store.db.updateTable('batches').set({ rationale_min: 60 }).execute();
+      await expect(submitReview(store, review(items.A, 'r2', { a: 1, b: 2, c: 3 }), { now: T0 + 2000 })).rejects.toThrow(/rationale of at least 60 characters/);
+      await store.db.updateTable('batches').set({ rationale_min: 20 }).execute();
       expect(await count('reviews')).toBe(before);
     });
 

@@ -11,8 +11,8 @@ import { DEFAULT_RUBRIC, progress } from './score.ts';
 export const importCommand: Command = {
   name: 'import',
   summary: 'import a JSONL or CSV batch into the database, scored with a rubric',
-  usage: 'plumbline import FILE --batch NAME [--reviews N] [--rubric R.yaml] [--skip-invalid REJECTS.jsonl]',
-  options: { values: ['batch', 'reviews', 'rubric', 'skip-invalid'], maxPositionals: 1 },
+  usage: 'plumbline import FILE --batch NAME [--reviews N] [--rationale-min CHARS] [--rubric R.yaml] [--skip-invalid REJECTS.jsonl]',
+  options: { values: ['batch', 'reviews', 'rationale-min', 'rubric', 'skip-invalid'], maxPositionals: 1 },
   async run(args, io) {
     const path = args.positionals[0];
     if (!path) throw new UsageError('plumbline import: name the file to import');
@@ -20,6 +20,8 @@ export const importCommand: Command = {
     if (!batchName) throw new UsageError('plumbline import: name the batch with --batch NAME');
     const reviews = args.values.reviews === undefined ? undefined : Number(args.values.reviews);
     if (reviews !== undefined && (!Number.isInteger(reviews) || reviews < 1 || reviews > 5)) throw new UserError(`--reviews must be a whole number from 1 to 5, not "${args.values.reviews}"`);
+    const rationaleMin = args.values['rationale-min'] === undefined ? undefined : Number(args.values['rationale-min']);
+    if (rationaleMin !== undefined && (!Number.isInteger(rationaleMin) || rationaleMin < 0 || rationaleMin > 2000)) throw new UserError(`--rationale-min must be a whole number of characters from 0 to 2000, not "${args.values['rationale-min']}"`);
     const rubricPath = args.values.rubric ?? DEFAULT_RUBRIC;
     const loaded = loadRubricFile(rubricPath);
     if (!loaded.rubric) {
@@ -35,7 +37,7 @@ export const importCommand: Command = {
         bar ??= progress(io, p.total, 'storing and scoring', 'prompts');
         bar.update(p.done);
       };
-      const result = await importBatch(store, { path, batchName, rubric: loaded.rubric, reviews, rejectsPath: args.values['skip-invalid'], onProgress });
+      const result = await importBatch(store, { path, batchName, rubric: loaded.rubric, reviews, rationaleMin, rejectsPath: args.values['skip-invalid'], onProgress });
       io.out(`imported "${batchName}": ${result.items} prompts, ${result.responses} responses, scored with ${loaded.rubric.id} ${loaded.rubric.version}${result.rejected ? `; ${result.rejected} problem(s) skipped, listed in ${args.values['skip-invalid']}` : ''}`);
       return 0;
     } catch (error) {

@@ -1,9 +1,14 @@
 import type { Kysely } from 'kysely';
+import type { Band } from '../../rubric/spec.ts';
 import type { Database, ItemState } from '../schema.ts';
 
 export interface QueueFilter {
   batchId?: number;
   flagged?: boolean;
+  /** Items with at least one response scored in this band. */
+  band?: Band;
+  /** Items with at least one finding of this check. */
+  check?: string;
   states?: ItemState[];
   limit?: number;
   offset?: number;
@@ -54,6 +59,11 @@ export async function listQueue(db: Kysely<Database>, filter: QueueFilter = {}):
     .where('items.state', 'in', filter.states ?? ['open', 'in_review']);
   if (filter.batchId !== undefined) query = query.where('items.batch_id', '=', filter.batchId);
   if (filter.flagged) query = query.where('items.flag_severity', 'is not', null);
+  if (filter.band) query = query.where('items.score_bands', 'like', `%,${filter.band},%`);
+  if (filter.check) {
+    if (!/^[a-z][a-z0-9-]*$/.test(filter.check)) throw new Error(`not a check id: "${filter.check}"`);
+    query = query.where('items.finding_checks', 'like', `%,${filter.check},%`);
+  }
   const rows = await query
     .orderBy('items.priority', 'desc')
     .orderBy('items.created_at', 'asc')
@@ -70,4 +80,9 @@ export async function countItemsByState(db: Kysely<Database>): Promise<Record<It
   const counts: Record<ItemState, number> = { open: 0, in_review: 0, adjudication: 0, final: 0, escalated: 0 };
   for (const row of rows) counts[row.state] = Number(row.n);
   return counts;
+}
+
+/** Every batch's id and name, newest first, for the queue's batch filter. */
+export async function batchNames(db: Kysely<Database>): Promise<{ id: number; name: string }[]> {
+  return db.selectFrom('batches').select(['id', 'name']).orderBy('id', 'desc').execute();
 }

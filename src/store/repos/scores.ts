@@ -1,3 +1,4 @@
+import { delimited } from '../delimited-list.ts';
 import type { Kysely, Transaction } from 'kysely';
 import { nowIso } from '../../clock.ts';
 import type { Rubric } from '../../rubric/load.ts';
@@ -38,5 +39,13 @@ export async function storeItemScore(db: Db, itemId: number, scored: ItemScore, 
     )
     .onConflict((oc) => oc.columns(['response_id', 'rubric_version']).doNothing())
     .execute();
-  await db.updateTable('items').set({ priority: scored.priority.value }).where('id', '=', itemId).execute();
+  await db
+    .updateTable('items')
+    .set({
+      priority: scored.priority.value,
+      score_bands: delimited(scored.responses.map((r) => r.band)),
+      finding_checks: delimited(scored.responses.flatMap((r) => r.findings.map((f) => f.check))),
+    })
+    .where('id', '=', itemId)
+    .execute();
 }

@@ -9,7 +9,7 @@ import { requireRole } from '../middleware/require-role.ts';
 
 async function pageData(c: Context<AppEnv>, itemId: number) {
   const { db } = c.get('store');
-  const item = await db.selectFrom('items').select(['id', 'prompt_id', 'prompt', 'state']).where('id', '=', itemId).executeTakeFirst();
+  const item = await db.selectFrom('items').innerJoin('batches', 'batches.id', 'items.batch_id').select(['items.id', 'items.prompt_id', 'items.prompt', 'items.state', 'batches.rationale_min']).where('items.id', '=', itemId).executeTakeFirst();
   if (!item) throw new HttpError(404, `There is no item ${itemId}.`);
   const responses = await db.selectFrom('responses').select(['id', 'response_id', 'text']).where('item_id', '=', itemId).orderBy('position').execute();
   const scores = await db.selectFrom('scores').select(['response_id', 'overall', 'band', 'suggested_rank', 'findings', 'id']).where('response_id', 'in', responses.map((r) => r.id)).orderBy('id').execute();
@@ -46,7 +46,7 @@ export function adjudicationRoutes() {
   app.get('/adjudicate/:id{[0-9]+}', adjudicator, async (c) => {
     const data = await pageData(c, Number(c.req.param('id')));
     if (data.item.state !== 'adjudication' && data.item.state !== 'escalated') throw new HttpError(409, `This item does not need a decision (it is ${data.item.state.replace('_', ' ')}).`);
-    return c.html(<AdjudicationPage user={c.get('user')!} csrfToken={c.get('csrfToken')} itemId={data.item.id} promptId={data.item.prompt_id} prompt={data.item.prompt} candidates={data.candidates} reviews={data.reviews} />);
+    return c.html(<AdjudicationPage user={c.get('user')!} csrfToken={c.get('csrfToken')} itemId={data.item.id} promptId={data.item.prompt_id} prompt={data.item.prompt} candidates={data.candidates} reviews={data.reviews} minRationale={Number(data.item.rationale_min)} />);
   });
 
   app.post('/adjudicate/:id{[0-9]+}', adjudicator, async (c) => {
@@ -57,7 +57,7 @@ export function adjudicationRoutes() {
     try {
       await adjudicate(c.get('store'), { itemId, adjudicatorId: c.get('user')!.id, ranking, rationale: typeof body.rationale === 'string' ? body.rationale : '' });
     } catch (error) {
-      if (error instanceof ReviewInvalid) return c.html(<AdjudicationPage user={c.get('user')!} csrfToken={c.get('csrfToken')} itemId={itemId} promptId={data.item.prompt_id} prompt={data.item.prompt} candidates={data.candidates} reviews={data.reviews} error={`Not recorded: ${error.message}.`} />, 422);
+      if (error instanceof ReviewInvalid) return c.html(<AdjudicationPage user={c.get('user')!} csrfToken={c.get('csrfToken')} itemId={itemId} promptId={data.item.prompt_id} prompt={data.item.prompt} candidates={data.candidates} reviews={data.reviews} minRationale={Number(data.item.rationale_min)} error={`Not recorded: ${error.message}.`} />, 422);
       if (error instanceof ReviewConflict) throw new HttpError(409, `Not recorded: ${error.message}.`);
       throw error;
     }

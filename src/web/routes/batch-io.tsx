@@ -31,6 +31,8 @@ export function batchIoRoutes(imports: ImportJobs) {
     const rubric = await currentRubric(db, typeof body.rubric === 'string' && body.rubric ? body.rubric : 'general');
     if (!rubric) return refuse('Pick a rubric.');
     const reviews = body.reviews ? Number(body.reviews) : undefined;
+    const rationaleMin = typeof body.rationale_min === 'string' && body.rationale_min !== '' ? Number(body.rationale_min) : undefined;
+    if (rationaleMin !== undefined && (!Number.isInteger(rationaleMin) || rationaleMin < 0 || rationaleMin > 2000)) return refuse('The minimum rationale length must be a whole number of characters from 0 to 2000.');
     const format = /\.csv$/i.test(file.name) ? 'csv' : 'jsonl';
     const job = imports.start(c.get('store'), new Uint8Array(await file.arrayBuffer()), format, {
       fileName: file.name,
@@ -38,6 +40,7 @@ export function batchIoRoutes(imports: ImportJobs) {
       batchName: name,
       rubric,
       reviews: Number.isInteger(reviews) ? reviews : undefined,
+      rationaleMin,
       createdBy: c.get('user')!.id,
     });
     return c.redirect(`/batches/imports/${job.id}`, 303);

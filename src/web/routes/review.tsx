@@ -3,7 +3,7 @@ import { Hono, type Context } from 'hono';
 import { HttpError } from '../../errors.ts';
 import { displayOrder } from '../../review/display-order.ts';
 import { rankingProblem } from '../../review/ranking.ts';
-import { claimNext, DEFAULT_MIN_RATIONALE, ReviewConflict, ReviewInvalid, submitReview } from '../../review/workflow.ts';
+import { claimNext, ReviewConflict, ReviewInvalid, submitReview } from '../../review/workflow.ts';
 import type { ScoredFinding } from '../../rubric/score.ts';
 import { recordAudit } from '../../store/repos/audit.ts';
 import type { Ranks } from '../../stats/pairwise-agreement.ts';
@@ -20,7 +20,7 @@ type Ctx = Context<AppEnv>;
 async function loadForReview(c: Ctx, itemId: number) {
   const { db } = c.get('store');
   const user = c.get('user')!;
-  const item = await db.selectFrom('items').innerJoin('batches', 'batches.id', 'items.batch_id').select(['items.id', 'items.prompt_id', 'items.prompt', 'items.flag_reason', 'items.flag_severity', 'batches.blind_first']).where('items.id', '=', itemId).executeTakeFirst();
+  const item = await db.selectFrom('items').innerJoin('batches', 'batches.id', 'items.batch_id').select(['items.id', 'items.prompt_id', 'items.prompt', 'items.flag_reason', 'items.flag_severity', 'batches.blind_first', 'batches.rationale_min']).where('items.id', '=', itemId).executeTakeFirst();
   if (!item) throw new HttpError(404, `There is no item ${itemId}. Take the next one from the queue.`);
   const claim = await db.selectFrom('work_claims').select('expires_at').where('item_id', '=', itemId).where('user_id', '=', user.id).where('expires_at', '>', new Date().toISOString()).executeTakeFirst();
   if (!claim) throw new HttpError(409, 'You do not hold this item (your claim may have expired and returned it to the queue). Take the next item from the queue.');
@@ -44,7 +44,7 @@ function ranksFrom(body: Record<string, unknown>, ids: string[]): Ranks {
 
 function page(c: Ctx, data: Awaited<ReturnType<typeof loadForReview>>, extra: { revealed: boolean; firstRanking: Ranks | null; startedAt: string; error?: string }, status: 200 | 409 | 422 = 200) {
   return c.html(
-    <ReviewPage user={c.get('user')!} csrfToken={c.get('csrfToken')} reviewedToday={data.reviewedToday} dailyLimit={dailySoftLimit()} itemId={data.item.id} promptId={data.item.prompt_id} prompt={data.item.prompt} flag={data.item.flag_reason} candidates={data.candidates} warning={data.warning} minRationale={DEFAULT_MIN_RATIONALE} {...extra} />,
+    <ReviewPage user={c.get('user')!} csrfToken={c.get('csrfToken')} reviewedToday={data.reviewedToday} dailyLimit={dailySoftLimit()} itemId={data.item.id} promptId={data.item.prompt_id} prompt={data.item.prompt} flag={data.item.flag_reason} candidates={data.candidates} warning={data.warning} minRationale={Number(data.item.rationale_min)} {...extra} />,
     status,
   );
 }
