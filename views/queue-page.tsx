@@ -3,6 +3,7 @@ import type { QueueFilter, QueueRow } from '../src/store/repos/queue.ts';
 import { BAND_NAMES, type Band } from '../src/rubric/spec.ts';
 import type { ItemState } from '../src/store/schema.ts';
 import type { SessionUser } from '../src/web/context.ts';
+import type { HtmlEscapedString } from 'hono/utils/html';
 import { Layout } from './layout.tsx';
 import { shortText } from './text.tsx';
 
@@ -79,7 +80,8 @@ function QueueFilters(props: { filter: QueueFilter; batches: { id: number; name:
   );
 }
 
-export function QueuePage(props: { user: SessionUser; csrfToken: string; rows: QueueRow[]; counts: Record<ItemState, number>; filter: QueueFilter; batches: { id: number; name: string }[]; checks: readonly string[] }) {
+/** The queue page; `table` is the QueueTable already rendered (see QueueTableCache). */
+export function QueuePage(props: { user: SessionUser; csrfToken: string; table: HtmlEscapedString; counts: Record<ItemState, number>; filter: QueueFilter; batches: { id: number; name: string }[]; checks: readonly string[] }) {
   const { counts } = props;
   return (
     <Layout title="Queue" user={props.user} csrfToken={props.csrfToken}>
@@ -92,7 +94,7 @@ export function QueuePage(props: { user: SessionUser; csrfToken: string; rows: Q
         <li><strong>{counts.final}</strong> final</li>
       </ul>
       <QueueFilters filter={props.filter} batches={props.batches} checks={props.checks} />
-      <QueueTable rows={props.rows} />
+      {props.table}
     </Layout>
   );
 }

@@ -28,7 +28,7 @@ export interface ImportOptions {
   maxTextBytes?: number;
   /** Characters a rationale needs in this batch (default 20). */
   rationaleMin?: number;
-  /** Worker threads to score with (0: the calling thread); the default is one per core, at most four. */
+  /** Worker threads to score with (0: the calling thread); the default is `defaultScoreThreads()`. */
   scoreThreads?: number;
   onProgress?: (progress: ImportProgress) => void;
 }

@@ -50,8 +50,34 @@ function openSqlite(file: string): Store {
   } catch (error) {
     throw new UserError(sqliteOpenMessage(path, error));
   }
-  const db = new Kysely<Database>({ dialect: new SqliteDialect({ database: sqlite }) });
+  const db = new Kysely<Database>({ dialect: new SqliteDialect({ database: withStatementCache(sqlite) }) });
   return { db, kind: 'sqlite', where: path, close: () => db.destroy() };
+}
+
+/** Prepared statements kept per SQL text; the least recently used go first. */
+const STATEMENT_CACHE = 256;
+
+/**
+ * The SQLite connection as Kysely sees it, with prepared statements reused: preparing costs
+ * as much as running a small indexed query, and a page runs the same few statements every time.
+ * Reuse is safe because Kysely runs one query at a time on the one SQLite connection.
+ */
+function withStatementCache(sqlite: SqliteDatabase.Database) {
+  const cache = new Map<string, SqliteDatabase.Statement>();
+  return {
+    close: () => sqlite.close(),
+    prepare(sql: string) {
+      let statement = cache.get(sql);
+      if (statement) {
+        cache.delete(sql);
+      } else {
+        statement = sqlite.prepare(sql);
+        if (cache.size >= STATEMENT_CACHE) cache.delete(cache.keys().next().value!);
+      }
+      cache.set(sql, statement);
+      return statement;
+    },
+  };
 }
 
 function sqliteOpenMessage(path: string, error: unknown): string {

@@ -26,9 +26,9 @@ for (const factory of storeFactories()) {
       const store = await factory.open();
       await migrate(store);
       const status = await migrationStatus(store);
-      expect(status.map((m) => m.name)).toEqual(['0001-core', '0002-review-workflow', '0003-login-failures']);
+      expect(status.map((m) => m.name)).toEqual(['0001-core', '0002-review-workflow', '0003-login-failures', '0004-queue-filters']);
       expect(status.every((m) => m.executedAt !== null)).toBe(true);
-      expect(latestMigration).toBe('0003-login-failures');
+      expect(latestMigration).toBe('0004-queue-filters');
       // a second run is a no-op
       expect(await migrate(store)).toEqual([]);
       await store.close();
@@ -37,7 +37,7 @@ for (const factory of storeFactories()) {
     it('upgrades a database built at the older migration in place, keeping its rows', async () => {
       const store = await factory.open();
       await migrate(store, '0001-core');
-      expect((await migrationStatus(store)).map((m) => Boolean(m.executedAt))).toEqual([true, false, false]);
+      expect((await migrationStatus(store)).map((m) => Boolean(m.executedAt))).toEqual([true, false, false, false]);
       const userId = await createUser(store.db, { username: 'old', displayName: 'Old User', password: 'pw-old-1', roles: ['reviewer'] });
       await storeBatch(store.db, batch('old-batch', 'hash-old', twoItems));
       await migrate(store);
@@ -46,6 +46,8 @@ for (const factory of storeFactories()) {
       expect(await listBatches(store.db)).toMatchObject([{ name: 'old-batch', items: 2, final: 0 }]);
       // the tables 0002 adds are usable
       await store.db.insertInto('work_claims').values({ item_id: 1, user_id: userId, claimed_at: 'x', expires_at: 'y' }).execute();
+      // and the columns 0004 adds have their defaults on the old rows
+      expect((await store.db.selectFrom('batches').select('rationale_min').executeTakeFirstOrThrow()).rationale_min).toBe(20);
       await store.close();
     });
 

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { storeBatch } from '../../src/store/repos/batches.ts';
 import { ORIGIN, cookiesFrom, csrfFrom, demoPassword, useSeededApp, signIn } from '../helpers/web.ts';
 import { CONTENT_SECURITY_POLICY } from '../../src/web/middleware/security-headers.ts';
 
@@ -109,8 +110,8 @@ describe('sign-in, home queue and headers', () => {
 describe('shortened text in lists', () => {
   it('makes bidi overrides and zero-width characters visible in the queue too', async () => {
     const { cookie } = await signIn(fixture.app, 'reviewer');
-    const item = await fixture.store.db.selectFrom('items').select('id').where('state', '=', 'open').orderBy('priority', 'desc').executeTakeFirstOrThrow();
-    await fixture.store.db.updateTable('items').set({ prompt: 'Safe\u202Eesrever\u200B question' }).where('id', '=', item.id).execute();
+    // prompts never change once stored: the hostile one arrives in a batch of its own, first in the queue
+    await storeBatch(fixture.store.db, { name: 'bidi', sourceHash: 'bidi', sourceName: 'bidi.jsonl', items: [{ promptId: 'bidi-1', prompt: 'Safe\u202Eesrever\u200B question', responses: [{ responseId: 'a', text: 'A' }, { responseId: 'b', text: 'B' }], priority: 1e6 }] });
     const html = await (await fixture.app.request('/', { headers: { cookie } })).text();
     expect(html).toContain('Safe⟦U+202E⟧esrever⟦U+200B⟧ question');
   });

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { migrate } from '../../src/store/migrate.ts';
+import { claimNext, submitReview } from '../../src/review/workflow.ts';
 import { useSeededApp, signIn } from '../helpers/web.ts';
 
 const fixture = useSeededApp();
@@ -62,6 +63,27 @@ describe('queue filters', () => {
     const res = await fixture.app.request(`/${query}`, { headers: { cookie } });
     expect(res.status).toBe(400);
     expect(await res.text()).toContain(message);
+  });
+
+  it('shows a submitted review at once: the stored table is not reused once the data under it changed', async () => {
+    const { db } = fixture.store;
+    const before = await listed('');
+    const reviewer = await db.selectFrom('users').select('id').where('username', '=', 'reviewer2').executeTakeFirstOrThrow();
+    const claim = (await claimNext(fixture.store, reviewer.id))!;
+    const ids = (await db.selectFrom('responses').select('response_id').where('item_id', '=', claim.itemId).execute()).map((r) => r.response_id);
+    const ranks = Object.fromEntries(ids.map((id, i) => [id, i + 1]));
+    await submitReview(fixture.store, { itemId: claim.itemId, reviewerId: reviewer.id, status: 'submitted', displayOrder: ids, firstRanking: ranks, finalRanking: ranks, rationale: 'The first answers the question; the rest do not.', startedAt: new Date().toISOString(), timeSpentMs: 1000 });
+    const item = await db.selectFrom('items').innerJoin('batches', 'batches.id', 'items.batch_id').select(['items.state', 'batches.reviews_required']).where('items.id', '=', claim.itemId).executeTakeFirstOrThrow();
+    const after = await listed('');
+    if (item.state === 'in_review') {
+      const { cookie } = await signIn(fixture.app, 'reviewer');
+      const html = await (await fixture.app.request('/', { headers: { cookie } })).text();
+      const row = html.slice(html.indexOf(`href="/items/${claim.itemId}"`), html.indexOf('</tr>', html.indexOf(`href="/items/${claim.itemId}"`)));
+      expect(row).toContain(`1 of ${item.reviews_required}`);
+    } else {
+      expect(before).toContain(claim.itemId);
+      expect(after).not.toContain(claim.itemId);
+    }
   });
 
   it('the migration that adds the filters fills them in for items scored before it', async () => {

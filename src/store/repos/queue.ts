@@ -32,8 +32,25 @@ export interface QueueRow {
 /**
  * Items awaiting work in triage order: highest priority first, then oldest, then by id so the
  * order is stable. By default only open and in-review items are listed.
+ *
+ * Each state is read on its own in index order (`items_queue_page`), so a page costs about
+ * `offset + limit` index entries per state however many items wait (the counts in the select
+ * list are worked out for those rows only); the states are merged here.
  */
 export async function listQueue(db: Kysely<Database>, filter: QueueFilter = {}): Promise<QueueRow[]> {
+  const limit = filter.limit ?? 50;
+  const offset = filter.offset ?? 0;
+  const perState = await Promise.all((filter.states ?? ['open', 'in_review']).map((state) => pageOfState(db, state, filter, offset + limit)));
+  const page = perState.flat().sort(queueOrder).slice(offset, offset + limit);
+  return page.map((r) => ({ ...r, priority: Number(r.priority), responses: Number(r.responses ?? 0), reviews: Number(r.reviews ?? 0) }));
+}
+
+function queueOrder(a: { priority: number; created_at: string; id: number }, b: { priority: number; created_at: string; id: number }): number {
+  return Number(b.priority) - Number(a.priority) || (a.created_at < b.created_at ? -1 : a.created_at > b.created_at ? 1 : 0) || a.id - b.id;
+}
+
+/** The first `count` items of one state that pass the filter, in queue order. */
+async function pageOfState(db: Kysely<Database>, state: ItemState, filter: QueueFilter, count: number) {
   let query = db
     .selectFrom('items')
     .innerJoin('batches', 'batches.id', 'items.batch_id')
@@ -49,14 +66,9 @@ export async function listQueue(db: Kysely<Database>, filter: QueueFilter = {}):
       'items.created_at',
       'batches.reviews_required',
       eb.selectFrom('responses').whereRef('responses.item_id', '=', 'items.id').select((e) => e.fn.countAll<number>().as('n')).as('responses'),
-      eb
-        .selectFrom('reviews')
-        .whereRef('reviews.item_id', '=', 'items.id')
-        .where('reviews.status', '=', 'submitted')
-        .select((e) => e.fn.countAll<number>().as('n'))
-        .as('reviews'),
+      eb.selectFrom('reviews').whereRef('reviews.item_id', '=', 'items.id').where('reviews.status', '=', 'submitted').select((e) => e.fn.countAll<number>().as('n')).as('reviews'),
     ])
-    .where('items.state', 'in', filter.states ?? ['open', 'in_review']);
+    .where('items.state', '=', state);
   if (filter.batchId !== undefined) query = query.where('items.batch_id', '=', filter.batchId);
   if (filter.flagged) query = query.where('items.flag_severity', 'is not', null);
   if (filter.band) query = query.where('items.score_bands', 'like', `%,${filter.band},%`);
@@ -64,14 +76,7 @@ export async function listQueue(db: Kysely<Database>, filter: QueueFilter = {}):
     if (!/^[a-z][a-z0-9-]*$/.test(filter.check)) throw new Error(`not a check id: "${filter.check}"`);
     query = query.where('items.finding_checks', 'like', `%,${filter.check},%`);
   }
-  const rows = await query
-    .orderBy('items.priority', 'desc')
-    .orderBy('items.created_at', 'asc')
-    .orderBy('items.id', 'asc')
-    .limit(filter.limit ?? 50)
-    .offset(filter.offset ?? 0)
-    .execute();
-  return rows.map((r) => ({ ...r, responses: Number(r.responses ?? 0), reviews: Number(r.reviews ?? 0), priority: Number(r.priority) }));
+  return query.orderBy('items.priority', 'desc').orderBy('items.created_at', 'asc').orderBy('items.id', 'asc').limit(count).execute();
 }
 
 /** Counts of items per state, for the home page summary. */

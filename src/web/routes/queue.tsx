@@ -1,5 +1,9 @@
 /** @jsxImportSource hono/jsx */
 import { Hono } from 'hono';
+import { raw } from 'hono/html';
+import { QueueTableCache } from '../queue-table-cache.ts';
+import type { Kysely } from 'kysely';
+import type { Database, ItemState } from '../../store/schema.ts';
 import { HttpError } from '../../errors.ts';
 import { batchNames, countItemsByState, listQueue, type QueueFilter } from '../../store/repos/queue.ts';
 import { CHECK_IDS } from '../../checks/registry.ts';
@@ -30,17 +34,33 @@ export function queueFilterFrom(query: Record<string, string>): QueueFilter {
   return filter;
 }
 
+/** How old the queue page's counts by state may be. Counting reads every item's index entry. */
+const COUNTS_MAX_AGE_MS = 2000;
+const recentCounts = new WeakMap<object, { at: number; counts: Promise<Record<ItemState, number>> }>();
+
+/** Items per state, counted at most COUNTS_MAX_AGE_MS ago (a summary, not a record). */
+function recentStateCounts(db: Kysely<Database>): Promise<Record<ItemState, number>> {
+  const cached = recentCounts.get(db);
+  if (cached && Date.now() - cached.at < COUNTS_MAX_AGE_MS) return cached.counts;
+  const counts = countItemsByState(db);
+  recentCounts.set(db, { at: Date.now(), counts });
+  counts.catch(() => recentCounts.delete(db));
+  return counts;
+}
+
 /** The home page (the triage queue) and the read-only item page. */
 export function queueRoutes() {
   const app = new Hono<AppEnv>();
 
+  const tables = new QueueTableCache();
+
   app.get('/', requireRole(...ANY_ROLE), async (c) => {
     const { db } = c.get('store');
     const filter = queueFilterFrom(c.req.query());
-    const rows = await listQueue(db, filter);
-    if (c.req.header('hx-request')) return c.html(<QueueTable rows={rows} />);
-    const [counts, batches] = await Promise.all([countItemsByState(db), batchNames(db)]);
-    return c.html(<QueuePage user={c.get('user')!} csrfToken={c.get('csrfToken')} rows={rows} counts={counts} filter={filter} batches={batches} checks={CHECK_IDS} />);
+    const table = raw(await tables.get(db, JSON.stringify(filter), async () => String(await (<QueueTable rows={await listQueue(db, filter)} />).toString())));
+    if (c.req.header('hx-request')) return c.html(table);
+    const [counts, batches] = await Promise.all([recentStateCounts(db), batchNames(db)]);
+    return c.html(<QueuePage user={c.get('user')!} csrfToken={c.get('csrfToken')} table={table} counts={counts} filter={filter} batches={batches} checks={CHECK_IDS} />);
   });
 
   app.get('/items/:id{[0-9]+}', requireRole(...ANY_ROLE), async (c) => {

@@ -1,0 +1,122 @@
+import { createWriteStream, mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { once } from 'node:events';
+import { fileURLToPath } from 'node:url';
+import { loadRubric } from '../../src/rubric/load.ts';
+import { scoreItem } from '../../src/rubric/score.ts';
+import { openStore } from '../../src/store/connect.ts';
+import { createUser } from '../../src/store/repos/users.ts';
+import { insertDecision } from '../../src/store/repos/reviews.ts';
+import { prng, syntheticResponse } from './corpus.ts';
+import { BIN, loadTest, runMeasured, startServerProcess } from './processes.ts';
+import type { BenchRow } from './report.ts';
+
+const RUN_TS = fileURLToPath(new URL('./run-ts.mjs', import.meta.url));
+const BARE_SERVER = fileURLToPath(new URL('./bare-table-server.tsx', import.meta.url));
+const RUBRIC = fileURLToPath(new URL('../../rubrics/general.yaml', import.meta.url));
+const RESPONSES_PER_PROMPT = 5;
+const PASSWORD = 'bench-password-1';
+
+/** A batch file of `prompts` prompts with five generated responses each (about 800 characters). */
+async function writeBatch(path: string, prompts: number): Promise<void> {
+  const random = prng(2024);
+  const out = createWriteStream(path);
+  for (let i = 0; i < prompts; i++) {
+    const responses = Array.from({ length: RESPONSES_PER_PROMPT }, (_, k) => ({ response_id: `r${k + 1}`, text: syntheticResponse(random, 400 + Math.round(random() * 800)) }));
+    const line = JSON.stringify({ prompt_id: `bench-${i}`, prompt: `Question ${i}: how should I store fuel and boil water on a rainy trip?`, responses });
+    if (!out.write(`${line}\n`)) await once(out, 'drain');
+  }
+  out.end();
+  await once(out, 'finish');
+}
+
+/** Single-thread score-only throughput (what `plumbline score` does per item), responses per second. */
+function scoreOnly(path: string, prompts: number): number {
+  const rubric = loadRubric(readFileSync(RUBRIC, 'utf8')).rubric!;
+  const lines = readFileSync(path, 'utf8').split('\n', prompts);
+  const items = lines.map((l) => JSON.parse(l) as { prompt: string; responses: { response_id: string; text: string }[] }).map((x) => ({ prompt: x.prompt, responses: x.responses.map((r) => ({ responseId: r.response_id, text: r.text })), flagSeverity: null }));
+  for (const item of items.slice(0, 50)) scoreItem(rubric, item); // warm up
+  const t0 = performance.now();
+  for (const item of items) scoreItem(rubric, item);
+  return (items.length * RESPONSES_PER_PROMPT) / ((performance.now() - t0) / 1000);
+}
+
+/** Marks the first `items` items of the batch decided by adjudication (ranks 1–5), for the export benchmark. */
+async function decide(dbFile: string, items: number): Promise<void> {
+  const store = await openStore({ kind: 'sqlite', file: dbFile });
+  try {
+    const ids = await store.db.selectFrom('items').select('id').orderBy('id').limit(items).execute();
+    await store.db.transaction().execute(async (trx) => {
+      for (const { id } of ids) await insertDecision(trx, { itemId: id, adjudicatorId: null, method: 'adjudication', ranking: { r1: 1, r2: 2, r3: 3, r4: 4, r5: 5 }, rationale: 'Decided for the export benchmark.', rubricVersion: null });
+    });
+    await createUser(store.db, { username: 'bench', displayName: 'Benchmark reviewer', password: PASSWORD, roles: ['reviewer'] });
+  } finally {
+    await store.close();
+  }
+}
+
+/** Signs in over HTTP and returns the session cookie. */
+async function signIn(base: string): Promise<string> {
+  const page = await fetch(`${base}/login`);
+  const cookie = page.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  const csrf = (await page.text()).match(/name="csrf-token" content="([^"]+)"/)![1];
+  const res = await fetch(`${base}/login`, { method: 'POST', redirect: 'manual', headers: { cookie, origin: base, 'content-type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ username: 'bench', password: PASSWORD, _csrf: csrf, next: '/' }) });
+  if (res.status !== 303) throw new Error(`bench sign-in failed: ${res.status}`);
+  return [cookie, ...res.headers.getSetCookie().map((c) => c.split(';')[0])].join('; ');
+}
+
+/**
+ * Issue 5's figures: importing 20,000 prompts × 5 responses with scoring against score-only
+ * throughput, with the import's peak memory; exporting 100,000 pairs (speed, and peak memory
+ * against an export a tenth the size); the queue page with the batch stored against a bare
+ * Hono route rendering a 50-row table, 50 connections each.
+ */
+export async function workflowBench(options: { quick: boolean }): Promise<BenchRow[]> {
+  const rows: BenchRow[] = [];
+  const prompts = options.quick ? 2000 : 20_000;
+  const responses = prompts * RESPONSES_PER_PROMPT;
+  const dir = mkdtempSync(join(tmpdir(), 'plumbline-bench-'));
+  try {
+    const batch = join(dir, 'batch.jsonl');
+    const dbFile = join(dir, 'bench.db');
+    await writeBatch(batch, prompts);
+    const env = { PLUMBLINE_DB: dbFile };
+
+    // import with scoring (worker threads) vs score-only on one thread
+    const scoreRate = scoreOnly(batch, Math.min(prompts, 1000));
+    const imported = await runMeasured([BIN, 'import', batch, '--batch', 'bench', '--rubric', RUBRIC], env);
+    if (imported.code !== 0) throw new Error(`bench import failed:\n${imported.output}`);
+    const importRate = responses / (imported.ms / 1000);
+    rows.push({ area: 'workflow', name: 'score only (one thread, in process)', value: scoreRate, unit: 'responses/s' });
+    rows.push({ area: 'workflow', name: `import ${responses.toLocaleString('en')} responses with scoring into SQLite (whole command)`, value: importRate, unit: 'responses/s', ratio: importRate / scoreRate, target: '≥ 0.6× score only', pass: importRate / scoreRate >= 0.6 });
+    rows.push({ area: 'workflow', name: 'import: peak resident memory (process and scoring threads)', value: imported.peakRssMb, unit: 'MB', target: '≤ 400 MB', pass: imported.peakRssMb <= 400 });
+
+    // export: 100,000 pairs (10 per decided item), and a tenth of that for the memory comparison
+    const pairs = options.quick ? 10_000 : 100_000;
+    await decide(dbFile, pairs / 10);
+    const small = await runMeasured([BIN, 'export', '--format', 'pairs', '--batch', 'bench', '--out', join(dir, 'small.jsonl'), '--since', '2100-01-01'], env);
+    const whole = await runMeasured([BIN, 'export', '--format', 'pairs', '--batch', 'bench', '--out', join(dir, 'pairs.jsonl')], env);
+    if (whole.code !== 0) throw new Error(`bench export failed:\n${whole.output}`);
+    const mb = statSync(join(dir, 'pairs.jsonl')).size / 1024 / 1024;
+    const lines = readFileSync(join(dir, 'pairs.jsonl'), 'utf8').split('\n').length - 1;
+    rows.push({ area: 'workflow', name: `export ${lines.toLocaleString('en')} pairs (${mb.toFixed(0)} MB JSON Lines, whole command)`, value: mb / (whole.ms / 1000), unit: 'MB/s', target: '≥ 20 MB/s', pass: mb / (whole.ms / 1000) >= 20 });
+    rows.push({ area: 'workflow', name: 'export: peak memory, all pairs vs none (flat: the same)', value: whole.peakRssMb - small.peakRssMb, unit: 'MB more', target: 'flat (< 50 MB more)', pass: whole.peakRssMb - small.peakRssMb < 50, detail: `${whole.peakRssMb.toFixed(0)} MB vs ${small.peakRssMb.toFixed(0)} MB` });
+
+    // queue page vs a bare Hono table, 50 connections each, one after the other
+    const durationMs = options.quick ? 3000 : 10_000;
+    const bare = await startServerProcess([RUN_TS, BARE_SERVER], {}, /serving (http:\/\/\S+?)\/?$/m);
+    const reference = await loadTest(bare.url, { connections: 50, durationMs });
+    await bare.stop();
+    const app = await startServerProcess([BIN, 'serve', '--no-demo'], { ...env, PORT: '0' }, /serving (http:\/\/\S+?)\/? /);
+    const cookie = await signIn(app.url);
+    const queue = await loadTest(`${app.url}/`, { connections: 50, durationMs, headers: { cookie } });
+    await app.stop();
+    rows.push({ area: 'workflow', name: 'bare Hono route, 50-row table, 50 connections', value: reference.rps, unit: 'requests/s', detail: `p50 ${reference.p50.toFixed(1)} ms, p99 ${reference.p99.toFixed(1)} ms, ${reference.errors} errors` });
+    rows.push({ area: 'workflow', name: `queue page, ${responses.toLocaleString('en')} responses stored, 50 connections`, value: queue.rps, unit: 'requests/s', ratio: queue.rps / reference.rps, target: '≥ 0.25× bare route', pass: queue.rps / reference.rps >= 0.25 && queue.errors === 0, detail: `p50 ${queue.p50.toFixed(1)} ms, p99 ${queue.p99.toFixed(1)} ms, ${queue.errors} errors` });
+    rows.push({ area: 'workflow', name: 'queue page p99 latency, 50 connections', value: queue.p99, unit: 'ms', target: '≤ 50 ms', pass: queue.p99 <= 50 });
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+  return rows;
+}
