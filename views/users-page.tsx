@@ -28,7 +28,7 @@ export function UsersPage(props: { user: SessionUser; csrfToken: string; users: 
               <td class="actions">
                 <form method="post" action={`/admin/users/${u.id}/reset-password`}>
                   <input type="hidden" name="_csrf" value={props.csrfToken} />
-                  <button type="submit" aria-label={`Reset the password of ${u.username}`}>Reset password</button>
+                  <button type="submit" aria-label={`Reset password of ${u.username}`}>Reset password</button>
                 </form>
                 {!u.disabled && u.id !== props.user.id && (
                   <form method="post" action={`/admin/users/${u.id}/disable`}>
