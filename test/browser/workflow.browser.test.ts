@@ -1,48 +1,22 @@
-import { mkdirSync, readFileSync } from 'node:fs';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { chromiumAvailable, startBrowserApp } from '../helpers/browser.ts';
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { ARTIFACTS, chromiumAvailable, useBrowserApp } from '../helpers/browser.ts';
 import { keyboardReport, seriousAxeViolations } from '../helpers/page-checks.ts';
 import { demoPassword } from '../helpers/web.ts';
-import type { RunningServer } from '../../src/web/server.ts';
-import type { Store } from '../../src/store/connect.ts';
-
-const ARTIFACTS = new URL('../../test-artifacts/', import.meta.url).pathname;
 
 const batchFile = [1, 2, 3]
   .map((i) => JSON.stringify({ prompt_id: `web-${i}`, prompt: `Can I dry wet boots by the stove, case ${i}?`, responses: [{ response_id: 'a', text: 'Dry them slowly, away from direct heat, with newspaper inside.' }, { response_id: 'b', text: 'Put them right on the stove.' }] }))
   .join('\n');
 
 describe.skipIf(!chromiumAvailable())('the workflow in a real browser (headless Chromium)', () => {
-  let store: Store;
-  let server: RunningServer;
-  let browser: Browser;
-  let close: () => Promise<void>;
-  const problems: string[] = [];
-
-  beforeAll(async () => {
-    mkdirSync(ARTIFACTS, { recursive: true });
-    ({ store, server, browser, close } = await startBrowserApp(demoPassword));
-  }, 60_000);
-  afterAll(async () => {
-    await close?.();
-  });
-
-  async function signedInPage(username: string): Promise<Page> {
-    const context = await browser.newContext({ acceptDownloads: true });
-    const page = await context.newPage();
-    page.on('console', (m) => { if (m.type() === 'error') problems.push(`${username} console: ${m.text()}`); });
-    page.on('pageerror', (e) => problems.push(`${username} page error: ${e.message}`));
-    await page.goto(`${server.url}/login`);
-    await page.fill('#username', username);
-    await page.fill('#password', demoPassword(username));
-    await Promise.all([page.waitForURL(`${server.url}/`), page.click('button[type=submit]')]);
-    return page;
-  }
+  const app = useBrowserApp(demoPassword);
+  const { problems } = app;
+  const signedInPage = (username: string) => app.signedInPage(username);
 
   it('uploads an import and follows its progress until it is stored', async () => {
     const page = await signedInPage('data');
-    await page.goto(`${server.url}/batches`);
+    await page.goto(`${app.server.url}/batches`);
     await page.setInputFiles('#file', { name: 'boots.jsonl', mimeType: 'application/x-ndjson', buffer: Buffer.from(batchFile) });
     await page.fill('#name', 'boots from the browser');
     await Promise.all([page.waitForURL(/\/batches\/imports\/[0-9a-f-]+$/), page.click('form[action="/batches/import"] button[type=submit]')]);
@@ -55,7 +29,7 @@ describe.skipIf(!chromiumAvailable())('the workflow in a real browser (headless 
 
   it('downloads an export of final decisions', async () => {
     const page = await signedInPage('data');
-    await page.goto(`${server.url}/batches`);
+    await page.goto(`${app.server.url}/batches`);
     await page.screenshot({ path: `${ARTIFACTS}batches.png`, fullPage: true });
     const [download] = await Promise.all([page.waitForEvent('download'), page.locator('tr', { hasText: 'Cairnfield support' }).locator('a[href^="/export?format=pairs&batch="]').first().click()]);
     expect(download.suggestedFilename()).toBe('plumbline-pairs.jsonl');
@@ -67,24 +41,24 @@ describe.skipIf(!chromiumAvailable())('the workflow in a real browser (headless 
 
   it('adjudicates a disagreement: the item leaves the adjudication queue, decided', async () => {
     const page = await signedInPage('adjudicator');
-    await page.goto(`${server.url}/adjudicate`);
+    await page.goto(`${app.server.url}/adjudicate`);
     const link = page.locator('a[href^="/adjudicate/"]').first();
     const href = (await link.getAttribute('href'))!;
     await link.click();
-    await page.waitForURL(`${server.url}${href}`);
+    await page.waitForURL(`${app.server.url}${href}`);
     await page.screenshot({ path: `${ARTIFACTS}adjudication.png`, fullPage: true });
     await page.fill('#rationale', 'The first candidate answers safely and completely; the rest do not.');
-    await Promise.all([page.waitForURL(`${server.url}/adjudicate`), page.click('form[action^="/adjudicate/"] button[type=submit]')]);
+    await Promise.all([page.waitForURL(`${app.server.url}/adjudicate`), page.click('form[action^="/adjudicate/"] button[type=submit]')]);
     expect(await page.locator(`a[href="${href}"]`).count()).toBe(0);
     const itemId = Number(href.split('/').pop());
-    const decision = await store.db.selectFrom('adjudications').select(['method', 'rationale']).where('item_id', '=', itemId).executeTakeFirstOrThrow();
+    const decision = await app.store.db.selectFrom('adjudications').select(['method', 'rationale']).where('item_id', '=', itemId).executeTakeFirstOrThrow();
     expect(decision).toEqual({ method: 'adjudication', rationale: 'The first candidate answers safely and completely; the rest do not.' });
     expect(problems).toEqual([]);
   });
 
   it('edits a rubric with an error, fixes it, previews the impact and publishes a new version', async () => {
     const page = await signedInPage('policy');
-    await page.goto(`${server.url}/rubrics/cairnfield-support/edit`);
+    await page.goto(`${app.server.url}/rubrics/cairnfield-support/edit`);
     const original = await page.inputValue('#source');
     await page.fill('#source', original.replace('check: repetition', 'check: repitition'));
     await page.locator('#source').press('End');
@@ -96,10 +70,10 @@ describe.skipIf(!chromiumAvailable())('the workflow in a real browser (headless 
     await page.click('text=Preview impact');
     await page.waitForFunction(() => (document.querySelector('#impact')?.textContent ?? '').length > 20, undefined, { timeout: 20_000 });
     await page.screenshot({ path: `${ARTIFACTS}rubric-preview.png`, fullPage: true });
-    const versionsBefore = await store.db.selectFrom('rubric_versions').select('version').where('rubric_id', '=', 'cairnfield-support').execute();
+    const versionsBefore = await app.store.db.selectFrom('rubric_versions').select('version').where('rubric_id', '=', 'cairnfield-support').execute();
     await page.fill('#note', 'Title says it was revised.');
-    await Promise.all([page.waitForURL(`${server.url}/rubrics/cairnfield-support`), page.click('text=Publish as a new version')]);
-    const versionsAfter = await store.db.selectFrom('rubric_versions').select(['version', 'note']).where('rubric_id', '=', 'cairnfield-support').execute();
+    await Promise.all([page.waitForURL(`${app.server.url}/rubrics/cairnfield-support`), page.click('text=Publish as a new version')]);
+    const versionsAfter = await app.store.db.selectFrom('rubric_versions').select(['version', 'note']).where('rubric_id', '=', 'cairnfield-support').execute();
     expect(versionsAfter).toHaveLength(versionsBefore.length + 1);
     expect(versionsAfter.some((v) => v.note === 'Title says it was revised.')).toBe(true);
     expect(await page.content()).toContain('(revised)');
@@ -111,10 +85,10 @@ describe.skipIf(!chromiumAvailable())('the workflow in a real browser (headless 
     { name: 'login', user: null, path: '/login' },
     { name: 'queue', user: 'reviewer', path: '/' },
     { name: 'queue-filtered', user: 'reviewer', path: '/?band=fail' },
-    { name: 'item', user: 'reviewer', path: async () => `/items/${(await store.db.selectFrom('items').select('id').orderBy('id').executeTakeFirstOrThrow()).id}` },
+    { name: 'item', user: 'reviewer', path: async () => `/items/${(await app.store.db.selectFrom('items').select('id').orderBy('id').executeTakeFirstOrThrow()).id}` },
     { name: 'review', user: 'reviewer2', path: '/review/next' },
     { name: 'adjudication-queue', user: 'adjudicator', path: '/adjudicate' },
-    { name: 'adjudication-item', user: 'adjudicator', path: async () => `/adjudicate/${(await store.db.selectFrom('items').select('id').where('state', 'in', ['adjudication', 'escalated']).orderBy('id').executeTakeFirstOrThrow()).id}` },
+    { name: 'adjudication-item', user: 'adjudicator', path: async () => `/adjudicate/${(await app.store.db.selectFrom('items').select('id').where('state', 'in', ['adjudication', 'escalated']).orderBy('id').executeTakeFirstOrThrow()).id}` },
     { name: 'batches', user: 'data', path: '/batches' },
     { name: 'rubrics', user: 'policy', path: '/rubrics' },
     { name: 'rubric', user: 'policy', path: '/rubrics/general' },
@@ -126,8 +100,8 @@ describe.skipIf(!chromiumAvailable())('the workflow in a real browser (headless 
   ];
 
   it.each(PAGES)('$name: no serious or critical axe-core violation; every control reachable by Tab, labelled, with visible focus', async ({ name, user, path }) => {
-    const page = user ? await signedInPage(user) : await (await browser.newContext()).newPage();
-    await page.goto(`${server.url}${typeof path === 'string' ? path : await path()}`);
+    const page = user ? await signedInPage(user) : await (await app.browser.newContext()).newPage();
+    await page.goto(`${app.server.url}${typeof path === 'string' ? path : await path()}`);
     await page.screenshot({ path: `${ARTIFACTS}page-${name}.png`, fullPage: true });
     expect(await seriousAxeViolations(page)).toEqual([]);
     const keyboard = await keyboardReport(page);

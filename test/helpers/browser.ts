@@ -1,5 +1,6 @@
-import { existsSync } from 'node:fs';
-import { chromium, type Browser } from 'playwright-core';
+import { existsSync, mkdirSync } from 'node:fs';
+import { afterAll, beforeAll } from 'vitest';
+import { chromium, type Browser, type Page } from 'playwright-core';
 import { seedDemo } from '../../src/demo/seed.ts';
 import type { Store } from '../../src/store/connect.ts';
 import { migrate } from '../../src/store/migrate.ts';
@@ -48,3 +49,42 @@ export async function startBrowserApp(password: (username: string) => string): P
     },
   };
 }
+
+/**
+ * A browser-app fixture for one test file (see startBrowserApp), with sign-in through the login
+ * form and a list of console errors and page errors seen on any page, which tests expect empty.
+ */
+export function useBrowserApp(password: (username: string) => string): {
+  store: Store;
+  server: RunningServer;
+  browser: Browser;
+  problems: string[];
+  signedInPage(username: string, options?: { viewport?: { width: number; height: number } }): Promise<Page>;
+} {
+  const fixture = { problems: [] as string[] } as ReturnType<typeof useBrowserApp>;
+  let close: (() => Promise<void>) | undefined;
+  beforeAll(async () => {
+    mkdirSync(ARTIFACTS, { recursive: true });
+    const started = await startBrowserApp(password);
+    ({ store: fixture.store, server: fixture.server, browser: fixture.browser } = started);
+    close = started.close;
+  }, 60_000);
+  afterAll(async () => {
+    await close?.();
+  });
+  fixture.signedInPage = async (username, options = {}) => {
+    const context = await fixture.browser.newContext({ acceptDownloads: true, viewport: options.viewport });
+    const page = await context.newPage();
+    page.on('console', (m) => { if (m.type() === 'error') fixture.problems.push(`${username} console: ${m.text()}`); });
+    page.on('pageerror', (e) => fixture.problems.push(`${username} page error: ${e.message}`));
+    await page.goto(`${fixture.server.url}/login`);
+    await page.fill('#username', username);
+    await page.fill('#password', password(username));
+    await Promise.all([page.waitForURL(`${fixture.server.url}/`), page.click('button[type=submit]')]);
+    return page;
+  };
+  return fixture;
+}
+
+/** Where browser tests save their screenshots. */
+export const ARTIFACTS = new URL('../../test-artifacts/', import.meta.url).pathname;
