@@ -1,3 +1,4 @@
+import { storageFailure } from '../store/storage-failure.ts';
 import { UsageError, UserError } from '../errors.ts';
 import { parseArgs } from './args.ts';
 import type { Command, CommandIo } from './command.ts';
@@ -70,6 +71,12 @@ export async function main(argv: string[], io: CommandIo = processIo): Promise<n
       io.err(`plumbline: ${error.message.replace(/^plumbline:? /, '')}`);
       if (io.env.DEBUG) io.err(error.stack ?? '');
       return error.exitCode;
+    }
+    const failure = storageFailure(error);
+    if (failure) {
+      io.err(`plumbline: ${failure.message}`);
+      if (io.env.DEBUG && error instanceof Error) io.err(error.stack ?? '');
+      return 1;
     }
     const message = error instanceof Error ? error.message : String(error);
     io.err(`plumbline: unexpected error: ${message}${io.env.DEBUG ? '' : ' (set DEBUG=1 for details)'}`);

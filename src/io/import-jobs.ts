@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { UserError } from '../errors.ts';
+import { storageFailure } from '../store/storage-failure.ts';
 import type { Store } from '../store/connect.ts';
 import type { LineProblem } from './batch-format.ts';
 import { importUploaded, ImportRefused, type ImportOptions, type ImportProgress, type ImportResult } from './import-batch.ts';
@@ -55,8 +56,9 @@ export class ImportJobs {
           job.error = `Nothing was imported: ${error.problems.length} problem(s) in ${options.fileName}. Fix these lines and upload the file again.`;
         } else {
           job.state = 'failed';
-          job.error = error instanceof UserError ? error.message : `The import stopped and stored nothing: ${error instanceof Error ? error.message : String(error)}. Try again; if it fails again, ask an administrator to look at the server log.`;
-          if (!(error instanceof UserError)) console.error(error);
+          const failure = storageFailure(error);
+          job.error = error instanceof UserError ? error.message : failure ? `The import stopped and stored nothing: ${failure.message}` : `The import stopped and stored nothing: ${error instanceof Error ? error.message : String(error)}. Try again; if it fails again, ask an administrator to look at the server log.`;
+          if (!(error instanceof UserError) && !failure) console.error(error);
         }
       })
       .finally(() => (job.finishedAt = Date.now()));

@@ -100,6 +100,9 @@ async function openPostgres(url: string): Promise<Store> {
   // An idle client that loses its connection emits 'error' on the pool; without a listener
   // that would end the process. Queries on a lost connection fail and are reported instead.
   pool.on('error', () => {});
+  // The same holds for a client in use: a connection cut mid-query emits 'error' on the client
+  // as well as failing the query. The failed query reports it; the event must not end the process.
+  pool.on('connect', (client) => client.on('error', () => {}));
   let schema: string;
   try {
     const client = await pool.connect();

@@ -1,4 +1,5 @@
 /** @jsxImportSource hono/jsx */
+import { storageFailure } from '../store/storage-failure.ts';
 import { Hono } from 'hono';
 import { bodyLimit } from 'hono/body-limit';
 import { HttpError } from '../errors.ts';
@@ -68,7 +69,9 @@ export function createApp(options: AppOptions) {
 }
 
 function renderError(c: Parameters<Parameters<Hono<AppEnv>['onError']>[0]>[1], error: Error) {
-  const http = error instanceof HttpError ? error : null;
+  const failure = error instanceof HttpError ? null : storageFailure(error);
+  if (failure) console.error(`storage failure on ${c.req.method} ${c.req.path}: ${error.message}`);
+  const http = error instanceof HttpError ? error : failure ? new HttpError(503, failure.message) : null;
   const status = http?.status ?? 500;
   const message = http?.message ?? 'The server hit an unexpected error. Try again; if it keeps happening, tell your admin the time it happened.';
   if (!http && process.env.DEBUG) console.error(error);
