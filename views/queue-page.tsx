@@ -8,6 +8,7 @@ import { Layout } from './layout.tsx';
 import { shortText } from './text.tsx';
 
 const STATE_LABELS: Record<ItemState, string> = {
+  staged: 'being imported',
   open: 'waiting',
   in_review: 'partly reviewed',
   adjudication: 'needs adjudication',
@@ -86,7 +87,7 @@ export function QueuePage(props: { user: SessionUser; csrfToken: string; table: 
   return (
     <Layout title="Queue" user={props.user} csrfToken={props.csrfToken}>
       <h1>Review queue</h1>
-      {props.user.roles.includes('reviewer') && <p><a class="button" href="/review/next">Review the next item</a></p>}
+      {props.user.roles.includes('reviewer') && <p><a class="button" href={props.filter.batchId === undefined ? '/review/next' : `/review/next?batch=${props.filter.batchId}`}>{props.filter.batchId === undefined ? 'Review the next item' : 'Review the next item of this batch'}</a></p>}
       <ul class="counts" aria-label="Items by state">
         <li><strong>{counts.open}</strong> waiting</li>
         <li><strong>{counts.in_review}</strong> partly reviewed</li>

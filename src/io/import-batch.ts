@@ -9,6 +9,7 @@ import { scorePool } from '../rubric/score-pool.ts';
 import type { Store } from '../store/connect.ts';
 import { findBatchByName, findBatchBySource, insertItem } from '../store/repos/batches.ts';
 import { recordAudit } from '../store/repos/audit.ts';
+import { importOwner, sweepUnfinishedImports } from '../store/repos/unfinished-imports.ts';
 import { ensureRubricVersion, storeItemScore } from '../store/repos/scores.ts';
 import { nowIso } from '../clock.ts';
 import { DEFAULT_MIN_RATIONALE } from '../review/workflow.ts';
@@ -44,6 +45,8 @@ export interface ImportProgress {
 
 /** Items scored ahead of the one being stored: keeps every scoring thread busy, memory bounded. */
 const SCORING_WINDOW = 64;
+/** Items stored per transaction: large enough to be quick, small enough that reviewers' work never waits long. */
+const CHUNK_ITEMS = 200;
 
 export interface ImportResult {
   batchId: number;
@@ -81,68 +84,96 @@ async function validate(options: ImportOptions): Promise<{ hash: string; problem
  * Imports a batch file: every line is checked first; a file with any bad line is refused whole
  * (`ImportRefused`, nothing stored) unless a rejects file is given, in which case the good items
  * are stored and the problems written there. The same file imported twice (same bytes) is
- * refused. Items are stored and scored in one transaction, so a failure part-way stores nothing.
+ * refused. Items are stored in chunks as `staged` and shown together at the end; a failure
+ * part-way removes the batch, so a batch is either stored whole or not at all.
  */
 export async function importBatch(store: Store, options: ImportOptions): Promise<ImportResult> {
   const name = options.displayName ?? options.path;
   const { hash, problems, items } = await validate(options);
   if (problems.length && !options.rejectsPath) throw new ImportRefused(problems, name);
   if (!items) throw new UserError(`${name}: no valid items to import${problems.length ? ` (${problems.length} problem(s) written to ${options.rejectsPath})` : ' — the file holds no prompts'}`);
+  await sweepUnfinishedImports(store.db);
   const earlier = await findBatchBySource(store.db, hash);
+  if (earlier?.import_owner) throw new UserError(`${name} is being imported right now as batch "${earlier.name}" (started ${earlier.created_at.slice(0, 16).replace('T', ' ')} UTC) — wait for it to finish`);
   if (earlier) throw new UserError(`${name} was already imported as batch "${earlier.name}" on ${earlier.created_at.slice(0, 10)} — nothing new was stored`);
   if (await findBatchByName(store.db, options.batchName)) throw new UserError(`a batch named "${options.batchName}" already exists — choose another name with --batch`);
   if (options.rejectsPath) writeFileSync(options.rejectsPath, problems.map((p) => JSON.stringify({ line: p.line, field: p.field, reason: p.message })).join('\n') + (problems.length ? '\n' : ''));
 
   const { rubric } = options;
   options.onProgress?.({ phase: 'storing', done: 0, total: items });
+  const owner = importOwner();
+  const createdAt = nowIso();
+  const batchId = await store.db.transaction().execute(async (trx) => {
+    await ensureRubricVersion(trx, rubric);
+    const { id } = await trx
+      .insertInto('batches')
+      .values({
+        name: options.batchName,
+        source_hash: hash,
+        source_name: name,
+        reviews_required: options.reviews ?? rubric.agreement.reviews,
+        blind_first: rubric.agreement.blindFirst ? 1 : 0,
+        consensus_rule: JSON.stringify({ kind: rubric.agreement.rule, threshold: rubric.agreement.threshold }),
+        rubric_id: rubric.id,
+        rationale_min: options.rationaleMin ?? DEFAULT_MIN_RATIONALE,
+        created_by: options.createdBy ?? null,
+        created_at: createdAt,
+        import_owner: owner,
+        import_heartbeat_at: createdAt,
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    return id;
+  });
   const pool = scorePool(rubric, items, options.scoreThreads);
-  try {
-    return await store.db.transaction().execute(async (trx) => {
-      await ensureRubricVersion(trx, rubric);
-      const createdAt = nowIso();
-      const { id: batchId } = await trx
-        .insertInto('batches')
-        .values({
-          name: options.batchName,
-          source_hash: hash,
-          source_name: name,
-          reviews_required: options.reviews ?? rubric.agreement.reviews,
-          blind_first: rubric.agreement.blindFirst ? 1 : 0,
-          consensus_rule: JSON.stringify({ kind: rubric.agreement.rule, threshold: rubric.agreement.threshold }),
-          rubric_id: rubric.id,
-          rationale_min: options.rationaleMin ?? DEFAULT_MIN_RATIONALE,
-          created_by: options.createdBy ?? null,
-          created_at: createdAt,
-        })
-        .returning('id')
-        .executeTakeFirstOrThrow();
-      let stored = 0;
-      let responses = 0;
-      // Items are scored ahead (on the pool's threads) and stored in file order.
-      const ahead: { item: BatchItem; score: Promise<ItemScore> }[] = [];
-      const storeNext = async () => {
-        const { item, score } = ahead.shift()!;
-        const { itemId, responseRows } = await insertItem(trx, batchId, item, createdAt);
-        await storeItemScore(trx, itemId, await score, responseRows);
-        stored++;
-        responses += item.responses.length;
-        if (stored % 100 === 0 || stored === items) options.onProgress?.({ phase: 'storing', done: stored, total: items });
-      };
-      try {
-        for await (const event of readBatch(createReadStream(options.path), options.path, { maxTextBytes: options.maxTextBytes })) {
-          if (event.kind !== 'item') continue;
-          const { item } = event;
-          ahead.push({ item, score: pool.score({ prompt: item.prompt, responses: item.responses, flagSeverity: item.flag?.severity ?? null }) });
-          if (ahead.length >= SCORING_WINDOW) await storeNext();
-        }
-        while (ahead.length) await storeNext();
-      } finally {
-        // a failure part-way leaves scores in flight: settle them so none is reported unhandled
-        for (const { score } of ahead) score.catch(() => {});
+  // Items are scored ahead (on the pool's threads) and stored in file order, a chunk per
+  // transaction, as `staged`: other work goes on between chunks, and nobody sees the batch
+  // until the last step shows it whole. If anything fails the batch is removed; if the process
+  // dies, sweepUnfinishedImports removes it.
+  const ahead: { item: BatchItem; score: Promise<ItemScore> }[] = [];
+  let chunk: { item: BatchItem; score: ItemScore }[] = [];
+  let stored = 0;
+  let responses = 0;
+  const storeChunk = async () => {
+    if (!chunk.length) return;
+    const batch = chunk;
+    chunk = [];
+    await store.db.transaction().execute(async (trx) => {
+      for (const { item, score } of batch) {
+        const { itemId, responseRows } = await insertItem(trx, batchId, item, createdAt, 'staged');
+        await storeItemScore(trx, itemId, score, responseRows);
       }
-      await recordAudit(trx, { actorId: options.createdBy ?? null, kind: 'import', subject: `batch:${batchId}`, detail: { name: options.batchName, items: stored, responses, rejected: problems.length, rubric: `${rubric.id}@${rubric.version}`, source: name } });
-      return { batchId, items: stored, responses, rejected: problems.length };
+      await trx.updateTable('batches').set({ import_heartbeat_at: nowIso() }).where('id', '=', batchId).execute();
     });
+    stored += batch.length;
+    responses += batch.reduce((n, x) => n + x.item.responses.length, 0);
+    options.onProgress?.({ phase: 'storing', done: stored, total: items });
+  };
+  const takeScored = async () => {
+    const { item, score } = ahead.shift()!;
+    chunk.push({ item, score: await score });
+    if (chunk.length >= CHUNK_ITEMS) await storeChunk();
+  };
+  try {
+    for await (const event of readBatch(createReadStream(options.path), options.path, { maxTextBytes: options.maxTextBytes })) {
+      if (event.kind !== 'item') continue;
+      const { item } = event;
+      ahead.push({ item, score: pool.score({ prompt: item.prompt, responses: item.responses, flagSeverity: item.flag?.severity ?? null }) });
+      if (ahead.length >= SCORING_WINDOW) await takeScored();
+    }
+    while (ahead.length) await takeScored();
+    await storeChunk();
+    await store.db.transaction().execute(async (trx) => {
+      await trx.updateTable('items').set({ state: 'open' }).where('batch_id', '=', batchId).where('state', '=', 'staged').execute();
+      await trx.updateTable('batches').set({ import_owner: null, import_heartbeat_at: null }).where('id', '=', batchId).execute();
+      await recordAudit(trx, { actorId: options.createdBy ?? null, kind: 'import', subject: `batch:${batchId}`, detail: { name: options.batchName, items: stored, responses, rejected: problems.length, rubric: `${rubric.id}@${rubric.version}`, source: name } });
+    });
+    return { batchId, items: stored, responses, rejected: problems.length };
+  } catch (error) {
+    // scores still in flight are settled so that none is reported unhandled
+    for (const { score } of ahead) score.catch(() => {});
+    await store.db.deleteFrom('batches').where('id', '=', batchId).execute().catch(() => {}); // if this fails too, the sweep removes it
+    throw error;
   } finally {
     await pool.close();
   }

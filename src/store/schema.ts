@@ -37,9 +37,13 @@ export interface BatchTable {
   created_at: string;
   /** Characters a reviewer's or adjudicator's rationale needs at least. */
   rationale_min: Generated<number>;
+  /** While an import stores the batch: who is doing it ("host:pid") and when it last made progress; null once done. */
+  import_owner: string | null;
+  import_heartbeat_at: string | null;
 }
 
-export type ItemState = 'open' | 'in_review' | 'adjudication' | 'final' | 'escalated';
+/** `staged`: stored by an import still under way; no list or queue shows it until the import ends. */
+export type ItemState = 'staged' | 'open' | 'in_review' | 'adjudication' | 'final' | 'escalated';
 
 export interface ItemTable {
   id: Generated<number>;

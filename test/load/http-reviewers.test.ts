@@ -7,6 +7,7 @@ import { claimNext } from '../../src/review/workflow.ts';
 import { startServer, type RunningServer } from '../../src/web/server.ts';
 import type { Store } from '../../src/store/connect.ts';
 import { storeFactories } from '../helpers/stores.ts';
+import { HttpUser } from '../helpers/http-user.ts';
 
 const REVIEWERS = 50;
 const ITEMS = 1000;
@@ -15,42 +16,6 @@ const REQUIRED = 2;
 const ABANDONED = 20;
 const PASSWORD = 'pw-http-load-1';
 const RATIONALE = 'Ranked over HTTP by a simulated reviewer.';
-
-/** A reviewer's browser, reduced to cookies and the CSRF token, talking to one app instance. */
-class Reviewer {
-  cookie = '';
-  csrf = '';
-  constructor(readonly base: string, readonly username: string) {}
-
-  private remember(res: Response) {
-    const jar = new Map(this.cookie.split('; ').filter(Boolean).map((kv) => kv.split(/=(.*)/s, 2) as [string, string]));
-    for (const line of res.headers.getSetCookie()) {
-      const [name, value] = line.split(';')[0].split(/=(.*)/s, 2);
-      jar.set(name, value);
-    }
-    this.cookie = [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
-  }
-
-  async get(path: string): Promise<Response> {
-    const res = await fetch(`${this.base}${path}`, { headers: { cookie: this.cookie }, redirect: 'manual' });
-    this.remember(res);
-    return res;
-  }
-
-  async post(path: string, fields: Record<string, string>): Promise<Response> {
-    const res = await fetch(`${this.base}${path}`, { method: 'POST', redirect: 'manual', headers: { cookie: this.cookie, origin: this.base, 'content-type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ _csrf: this.csrf, ...fields }) });
-    this.remember(res);
-    return res;
-  }
-
-  async signIn(): Promise<void> {
-    const page = await this.get('/login');
-    this.csrf = (await page.text()).match(/name="csrf-token" content="([^"]+)"/)![1];
-    const res = await this.post('/login', { username: this.username, password: PASSWORD, next: '/' });
-    if (res.status !== 303) throw new Error(`${this.username} could not sign in: ${res.status}`);
-    this.csrf = (await (await this.get('/')).text()).match(/name="csrf-token" content="([^"]+)"/)![1];
-  }
-}
 
 for (const factory of storeFactories()) {
   describe(`${REVIEWERS} reviewers over HTTP on ${factory.kind}${factory.kind === 'postgres' ? ', two app instances sharing the database' : ''}`, () => {
@@ -87,7 +52,7 @@ for (const factory of storeFactories()) {
       expect(claims).toHaveLength(ABANDONED);
       const abandoned = [...new Set(claims)];
       expect(abandoned).toHaveLength(ABANDONED / REQUIRED); // each item took two of them, as many as it needs
-      const reviewers = Array.from({ length: REVIEWERS }, (_, r) => new Reviewer(servers[r % servers.length].url, `web${r}`));
+      const reviewers = Array.from({ length: REVIEWERS }, (_, r) => new HttpUser(servers[r % servers.length].url, `web${r}`, PASSWORD));
       for (const r of reviewers) await r.signIn();
       let maxLive = 0;
       const failures: string[] = [];

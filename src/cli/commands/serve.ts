@@ -2,6 +2,7 @@ import { configFromEnv } from '../../config.ts';
 import { seedDemo } from '../../demo/seed.ts';
 import { openStore } from '../../store/connect.ts';
 import { migrate } from '../../store/migrate.ts';
+import { sweepUnfinishedImports } from '../../store/repos/unfinished-imports.ts';
 import { startServer } from '../../web/server.ts';
 import type { Command } from '../command.ts';
 
@@ -16,6 +17,7 @@ export const serveCommand: Command = {
     const store = await openStore(config.database);
     try {
       await migrate(store);
+      for (const name of await sweepUnfinishedImports(store.db)) io.out(`Removed batch "${name}": its import stopped part-way (the process ended); nothing of it was shown. Import the file again.`);
       const seed = args.flags.has('no-demo') ? { seeded: false, logins: [] } : await seedDemo(store.db);
       const server = await startServer(store, { host: config.host, port: config.port, secureCookies: config.secureCookies });
       io.out(`Plumbline is serving ${server.url}/ (database: ${store.where})`);

@@ -7,6 +7,8 @@ import { delimited } from '../delimited-list.ts';
  *   comma-delimited lists (",fail,pass,"), so the queue filters by band and by check without
  *   reading every finding; items scored before this migration are filled in from their scores;
  * - `batches.rationale_min`, the characters a reviewer's rationale needs (20 before);
+ * - `batches.import_owner` and `import_heartbeat_at`, set while an import stores a batch in
+ *   steps (its items `staged`), so that an import cut short can be found and removed;
  * - an index in the queue's exact order within a state, so a page of the queue reads 50 index
  *   entries instead of sorting every waiting item.
  */
@@ -14,6 +16,8 @@ export async function up(db: Kysely<any>): Promise<void> {
   await db.schema.alterTable('items').addColumn('score_bands', 'text').execute();
   await db.schema.alterTable('items').addColumn('finding_checks', 'text').execute();
   await db.schema.alterTable('batches').addColumn('rationale_min', 'integer', (c) => c.notNull().defaultTo(20)).execute();
+  await db.schema.alterTable('batches').addColumn('import_owner', 'text').execute();
+  await db.schema.alterTable('batches').addColumn('import_heartbeat_at', 'text').execute();
   await db.schema.createIndex('items_queue_page').on('items').columns(['state', 'priority desc', 'created_at', 'id']).execute();
   const rows = await db
     .selectFrom('scores')
@@ -35,6 +39,8 @@ export async function up(db: Kysely<any>): Promise<void> {
 
 export async function down(db: Kysely<any>): Promise<void> {
   await db.schema.dropIndex('items_queue_page').execute();
+  await db.schema.alterTable('batches').dropColumn('import_heartbeat_at').execute();
+  await db.schema.alterTable('batches').dropColumn('import_owner').execute();
   await db.schema.alterTable('batches').dropColumn('rationale_min').execute();
   await db.schema.alterTable('items').dropColumn('finding_checks').execute();
   await db.schema.alterTable('items').dropColumn('score_bands').execute();

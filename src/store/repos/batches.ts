@@ -1,7 +1,7 @@
 import type { Kysely, Transaction } from 'kysely';
 import { nowIso } from '../../clock.ts';
 import { UserError } from '../../errors.ts';
-import type { Batch, Database } from '../schema.ts';
+import type { Batch, Database, ItemState } from '../schema.ts';
 import { recordAudit } from './audit.ts';
 
 export interface NewResponse {
@@ -108,6 +108,7 @@ export async function listBatches(db: Kysely<Database>): Promise<BatchSummary[]>
       eb.fn.count<number>('items.id').as('items'),
       eb.fn.sum<number>(eb.case().when('items.state', '=', 'final').then(1).else(0).end()).as('final'),
     ])
+    .where('batches.import_owner', 'is', null)
     .groupBy(['batches.id', 'batches.name', 'batches.created_at'])
     .orderBy('batches.created_at', 'desc')
     .orderBy('batches.id', 'desc')
@@ -119,7 +120,7 @@ export async function listBatches(db: Kysely<Database>): Promise<BatchSummary[]>
  * Inserts one item with its responses (in file order) and returns the item's id and each
  * response's row id by its imported id. Used by every path that stores items.
  */
-export async function insertItem(trx: Transaction<Database>, batchId: number, item: NewItem, createdAt: string): Promise<{ itemId: number; responseRows: Map<string, number> }> {
+export async function insertItem(trx: Transaction<Database>, batchId: number, item: NewItem, createdAt: string, state: ItemState = 'open'): Promise<{ itemId: number; responseRows: Map<string, number> }> {
   const { id: itemId } = await trx
     .insertInto('items')
     .values({
@@ -129,7 +130,7 @@ export async function insertItem(trx: Transaction<Database>, batchId: number, it
       flag_reason: item.flag?.reason ?? null,
       flag_severity: item.flag?.severity ?? null,
       meta: item.meta ? JSON.stringify(item.meta) : null,
-      state: 'open',
+      state,
       priority: item.priority ?? 0,
       created_at: createdAt,
     })

@@ -82,12 +82,12 @@ async function pageOfState(db: Kysely<Database>, state: ItemState, filter: Queue
 /** Counts of items per state, for the home page summary. */
 export async function countItemsByState(db: Kysely<Database>): Promise<Record<ItemState, number>> {
   const rows = await db.selectFrom('items').select((eb) => ['state', eb.fn.countAll<number>().as('n')]).groupBy('state').execute();
-  const counts: Record<ItemState, number> = { open: 0, in_review: 0, adjudication: 0, final: 0, escalated: 0 };
+  const counts: Record<ItemState, number> = { staged: 0, open: 0, in_review: 0, adjudication: 0, final: 0, escalated: 0 };
   for (const row of rows) counts[row.state] = Number(row.n);
   return counts;
 }
 
 /** Every batch's id and name, newest first, for the queue's batch filter. */
 export async function batchNames(db: Kysely<Database>): Promise<{ id: number; name: string }[]> {
-  return db.selectFrom('batches').select(['id', 'name']).orderBy('id', 'desc').execute();
+  return db.selectFrom('batches').select(['id', 'name']).where('import_owner', 'is', null).orderBy('id', 'desc').execute();
 }

@@ -58,7 +58,9 @@ export function reviewRoutes() {
     const limit = dailySoftLimit();
     const today = await reviewedToday(c.get('store').db, c.get('user')!.id);
     if (today >= limit && c.req.query('continue') !== '1') return c.html(<BreakPage user={c.get('user')!} csrfToken={c.get('csrfToken')} today={today} limit={limit} />);
-    const next = await claimNext(c.get('store'), c.get('user')!.id);
+    const batch = c.req.query('batch');
+    if (batch !== undefined && !/^[0-9]+$/.test(batch)) throw new HttpError(400, `batch must be a batch number, not "${batch}". Pick a batch from the queue's filter.`);
+    const next = await claimNext(c.get('store'), c.get('user')!.id, { batchId: batch === undefined ? undefined : Number(batch) });
     if (!next) return c.html(<NothingWaitingPage user={c.get('user')!} csrfToken={c.get('csrfToken')} />);
     return c.redirect(`/review/${next.itemId}`, 303);
   });
