@@ -3,7 +3,9 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { randomBytes } from 'node:crypto';
 import pg from 'pg';
+import { afterAll, beforeAll } from 'vitest';
 import { openStore, type Store } from '../../src/store/connect.ts';
+import { migrate } from '../../src/store/migrate.ts';
 
 /** A way to get a fresh, empty database of one kind, and to throw it away afterwards. */
 export interface StoreFactory {
@@ -79,4 +81,21 @@ export function postgresFactory(url: string): StoreFactory {
       await admin.end();
     },
   };
+}
+
+/**
+ * A migrated store from `factory` for one describe block, opened before its tests and removed
+ * after them. Read `fixture.store` inside tests.
+ */
+export function useMigratedStore(factory: StoreFactory): { store: Store } {
+  const fixture = {} as { store: Store };
+  beforeAll(async () => {
+    fixture.store = await factory.open();
+    await migrate(fixture.store);
+  });
+  afterAll(async () => {
+    await fixture.store.close();
+    await factory.cleanup();
+  });
+  return fixture;
 }

@@ -1,13 +1,11 @@
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { sql } from 'kysely';
 import { importBatch, ImportRefused } from '../../src/io/import-batch.ts';
 import { loadRubricFile } from '../../src/rubric/load.ts';
-import { migrate } from '../../src/store/migrate.ts';
-import type { Store } from '../../src/store/connect.ts';
-import { storeFactories } from '../helpers/stores.ts';
+import { storeFactories, useMigratedStore } from '../helpers/stores.ts';
 
 const dir = mkdtempSync(join(tmpdir(), 'plumbline-import-'));
 const rubric = loadRubricFile(new URL('../../rubrics/general.yaml', import.meta.url).pathname).rubric!;
@@ -54,23 +52,15 @@ const badFiles: { kind: string; name: string; content: string | Buffer; line: nu
 
 for (const factory of storeFactories()) {
   describe(`import on ${factory.kind}`, () => {
-    let store: Store;
-    const counts = async () => Object.fromEntries(await Promise.all(TABLES.map(async (t) => [t, Number((await store.db.selectFrom(t).select(sql<number>`count(*)`.as('n')).executeTakeFirstOrThrow()).n)])));
-    beforeAll(async () => {
-      store = await factory.open();
-      await migrate(store);
-    });
-    afterAll(async () => {
-      await store.close();
-      await factory.cleanup();
-    });
+    const fixture = useMigratedStore(factory);
+    const counts = async () => Object.fromEntries(await Promise.all(TABLES.map(async (t) => [t, Number((await fixture.store.db.selectFrom(t).select(sql<number>`count(*)`.as('n')).executeTakeFirstOrThrow()).n)])));
 
     it(`refuses ${badFiles.length} kinds of bad line, each with its line, field and reason, storing nothing`, async () => {
       const before = await counts();
       for (const [i, bad] of badFiles.entries()) {
         const path = join(dir, `${factory.kind}-${i}-${bad.name}`);
         writeFileSync(path, bad.content);
-        const error = await importBatch(store, { path, batchName: `bad ${i}`, rubric }).catch((e) => e);
+        const error = await importBatch(fixture.store, { path, batchName: `bad ${i}`, rubric }).catch((e) => e);
         expect(error, bad.kind).toBeInstanceOf(ImportRefused);
         const hit = (error as ImportRefused).problems.find((p) => bad.reason.test(p.message));
         expect(hit, `${bad.kind}: ${JSON.stringify((error as ImportRefused).problems)}`).toBeDefined();
@@ -83,18 +73,18 @@ for (const factory of storeFactories()) {
     it('stores a good file whole, scored, and refuses the same file twice', async () => {
       const path = join(dir, `${factory.kind}-good.jsonl`);
       writeFileSync(path, [good('p1'), good('p2'), line({ prompt_id: 'p3', prompt: 'Which card?', responses: [r('a', 'Card 4111 1111 1111 1111.'), r('b')], flag: { reason: 'pii', severity: 'high' }, meta: { channel: 'chat' } })].join('\n'));
-      const result = await importBatch(store, { path, batchName: `good ${factory.kind}`, rubric, reviews: 2 });
+      const result = await importBatch(fixture.store, { path, batchName: `good ${factory.kind}`, rubric, reviews: 2 });
       expect(result).toMatchObject({ items: 3, responses: 6, rejected: 0 });
-      const batch = await store.db.selectFrom('batches').selectAll().where('id', '=', result.batchId).executeTakeFirstOrThrow();
+      const batch = await fixture.store.db.selectFrom('batches').selectAll().where('id', '=', result.batchId).executeTakeFirstOrThrow();
       expect(batch).toMatchObject({ reviews_required: 2, rubric_id: 'general' });
-      const items = await store.db.selectFrom('items').selectAll().where('batch_id', '=', result.batchId).orderBy('priority', 'desc').execute();
+      const items = await fixture.store.db.selectFrom('items').selectAll().where('batch_id', '=', result.batchId).orderBy('priority', 'desc').execute();
       expect(items[0].prompt_id).toBe('p3'); // a critical finding comes first
       expect(JSON.parse(items[0].meta!)).toEqual({ channel: 'chat' });
-      const scores = await store.db.selectFrom('scores').select(['rubric_version']).where('rubric_id', '=', 'general').execute();
+      const scores = await fixture.store.db.selectFrom('scores').select(['rubric_version']).where('rubric_id', '=', 'general').execute();
       expect(scores.length).toBeGreaterThanOrEqual(6);
       expect(new Set(scores.map((s) => s.rubric_version))).toEqual(new Set([rubric.version]));
       const before = await counts();
-      await expect(importBatch(store, { path, batchName: 'again', rubric })).rejects.toThrow(/already imported as batch "good/);
+      await expect(importBatch(fixture.store, { path, batchName: 'again', rubric })).rejects.toThrow(/already imported as batch "good/);
       expect(await counts()).toEqual(before);
     });
 
@@ -102,7 +92,7 @@ for (const factory of storeFactories()) {
       const path = join(dir, `${factory.kind}-mixed.jsonl`);
       const rejects = join(dir, `${factory.kind}-rejects.jsonl`);
       writeFileSync(path, [good('m1'), 'not json', good('m2'), line({ prompt_id: 'm3', prompt: 'q', responses: [r('a')] })].join('\n'));
-      const result = await importBatch(store, { path, batchName: `mixed ${factory.kind}`, rubric, rejectsPath: rejects });
+      const result = await importBatch(fixture.store, { path, batchName: `mixed ${factory.kind}`, rubric, rejectsPath: rejects });
       expect(result).toMatchObject({ items: 2, rejected: 2 });
       const listed = readFileSync(rejects, 'utf8').trim().split('\n').map((l) => JSON.parse(l));
       expect(listed.map((p) => p.line)).toEqual([2, 4]);
@@ -113,8 +103,8 @@ for (const factory of storeFactories()) {
       const stored = async (threads: number) => {
         const path = join(dir, `${factory.kind}-threads-${threads}.jsonl`);
         writeFileSync(path, `${lines.join('\n')}\n${threads ? '' : '\n'}`); // different bytes, so not refused as a repeat
-        const { batchId } = await importBatch(store, { path, batchName: `threads ${threads} ${factory.kind}`, rubric, scoreThreads: threads });
-        return store.db
+        const { batchId } = await importBatch(fixture.store, { path, batchName: `threads ${threads} ${factory.kind}`, rubric, scoreThreads: threads });
+        return fixture.store.db
           .selectFrom('scores')
           .innerJoin('responses', 'responses.id', 'scores.response_id')
           .innerJoin('items', 'items.id', 'responses.item_id')
@@ -134,7 +124,7 @@ for (const factory of storeFactories()) {
     it('refuses a batch name already in use', async () => {
       const path = join(dir, `${factory.kind}-other.jsonl`);
       writeFileSync(path, [good('o1'), good('o2')].join('\n'));
-      await expect(importBatch(store, { path, batchName: `good ${factory.kind}`, rubric })).rejects.toThrow(/a batch named "good .*" already exists/);
+      await expect(importBatch(fixture.store, { path, batchName: `good ${factory.kind}`, rubric })).rejects.toThrow(/a batch named "good .*" already exists/);
     });
   });
 }
