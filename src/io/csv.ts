@@ -4,25 +4,27 @@
  * line it starts on.
  */
 export async function* parseCsvRecords(
-  lines: AsyncIterable<{ line: number; text: string } | { line: number; error: string }>,
+  lines: AsyncIterable<{ line: number; text: string; eol?: string } | { line: number; error: string }>,
 ): AsyncGenerator<{ line: number; fields: string[] } | { line: number; error: string; fatal: boolean }> {
   let fields: string[] = [];
   let field = '';
   let quoted = false;
   let start = 0;
   let inRecord = false;
+  let lastEol = '\n';
   for await (const entry of lines) {
     if ('error' in entry) {
       yield { line: entry.line, error: entry.error, fatal: true };
       return;
     }
     const text = entry.text;
+    const eol = entry.eol ?? '\n';
     if (!inRecord) {
       start = entry.line;
       fields = [];
       field = '';
       inRecord = true;
-    } else field += '\n';
+    } else field += lastEol; // a quoted field keeps its line break as written
     for (let i = 0; i < text.length; i++) {
       const c = text[i];
       if (quoted) {
@@ -38,6 +40,7 @@ export async function* parseCsvRecords(
         field = '';
       } else field += c;
     }
+    lastEol = eol;
     if (quoted) continue; // the quoted field goes on to the next line
     fields.push(field);
     inRecord = false;

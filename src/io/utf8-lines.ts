@@ -1,7 +1,10 @@
 import type { Readable } from 'node:stream';
 
-/** Lines of a byte stream, decoded as strict UTF-8 (a bad byte is reported, not replaced). */
-export async function* utf8Lines(input: Readable): AsyncGenerator<{ line: number; text: string } | { line: number; error: string }> {
+/**
+ * Lines of a byte stream, decoded as strict UTF-8 (a bad byte is reported, not replaced). Each
+ * line comes without its break; `eol` is the break as written ("\r\n", "\n", or "" at the end).
+ */
+export async function* utf8Lines(input: Readable): AsyncGenerator<{ line: number; text: string; eol: string } | { line: number; error: string }> {
   const decoder = new TextDecoder('utf-8', { fatal: true });
   let pending = '';
   let line = 1;
@@ -22,12 +25,13 @@ export async function* utf8Lines(input: Readable): AsyncGenerator<{ line: number
     pending += text;
     let at: number;
     while ((at = pending.indexOf('\n')) >= 0) {
-      yield { line, text: pending.slice(0, at).replace(/\r$/, '') };
+      const crlf = at > 0 && pending[at - 1] === '\r';
+      yield { line, text: pending.slice(0, crlf ? at - 1 : at), eol: crlf ? '\r\n' : '\n' };
       pending = pending.slice(at + 1);
       line++;
     }
   }
-  if (!bad && pending.length) yield { line, text: pending.replace(/\r$/, '') };
+  if (!bad && pending.length) yield { line, text: pending.replace(/\r$/, ''), eol: '' };
 }
 
 

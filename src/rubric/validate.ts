@@ -162,8 +162,13 @@ class Walker {
     const specs = this.paramSpecs[check];
     const out: Raw = {};
     if (!node || !specs) return out;
+    if (isScalar(node) && (node.value === null || node.value === '')) return out; // "params:" with nothing under it
+    if (!isMap(node)) {
+      this.at(node, `${where} must be a mapping of parameter names to values, not ${kindOf(node)} — indent each parameter under "params:"`, null);
+      return out;
+    }
     const known = Object.keys(specs);
-    for (const pair of (node as unknown as { items: Pair[] }).items) {
+    for (const pair of node.items as Pair[]) {
       const key = isScalar(pair.key) ? String(pair.key.value) : '';
       const spec = specs[key];
       if (!spec) {
