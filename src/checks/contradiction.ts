@@ -26,7 +26,8 @@ interface SentenceFacts {
   sentence: Sentence;
   stems: Set<string>;
   negatedStems: Set<string>;
-  words: Set<string>;
+  /** Its words that have an antonym in ANTONYM_PAIRS. */
+  antonymWords: Set<string>;
   conditional: boolean;
   quantities: Quantity[];
 }
@@ -34,25 +35,26 @@ interface SentenceFacts {
 function facts(doc: Doc, s: Sentence, quantities: Quantity[]): SentenceFacts {
   const stems = new Set<string>();
   const negatedStems = new Set<string>();
-  const words = new Set<string>();
+  const antonymWords = new Set<string>();
   let conditional = false;
   for (let i = s.firstToken; i < s.endToken; i++) {
     const t = doc.tokens[i];
     if (t.kind !== 'word' || t.clitic) continue;
-    words.add(t.lower);
     if (CONDITIONAL.has(t.lower)) conditional = true;
-    if (t.stop || t.cue || t.lower.length < 2 || ANTONYMS.has(t.lower)) continue;
+    if (ANTONYMS.has(t.lower)) {
+      antonymWords.add(t.lower);
+      continue;
+    }
+    if (t.stop || t.cue || t.lower.length < 2) continue;
     stems.add(t.stem);
     if (t.negated) negatedStems.add(t.stem);
   }
-  return { sentence: s, stems, negatedStems, words, conditional, quantities };
+  return { sentence: s, stems, negatedStems, antonymWords, conditional, quantities };
 }
 
 function antonymSwap(a: SentenceFacts, b: SentenceFacts): string | null {
-  for (const w of a.words) {
-    const opposite = ANTONYMS.get(w);
-    if (!opposite) continue;
-    for (const o of opposite) if (b.words.has(o) && !a.words.has(o) && !b.words.has(w)) return `${w}/${o}`;
+  for (const w of a.antonymWords) {
+    for (const o of ANTONYMS.get(w)!) if (b.antonymWords.has(o) && !a.antonymWords.has(o) && !b.antonymWords.has(w)) return `${w}/${o}`;
   }
   return null;
 }

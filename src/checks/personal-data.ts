@@ -102,14 +102,16 @@ function scanIbans(text: string, report: Report, found: Record<string, number>) 
 }
 
 function scanNetwork(text: string, report: Report, found: Record<string, number>) {
-  for (const m of text.matchAll(/(?<![\d.])(\d{1,3})\.(\d{1,3})\.(\d{1,3})\.(\d{1,3})(?![\d.]*\d)/g)) {
+  // cheap tests first: most texts hold no dotted digits and no two colons, and these patterns are slow to try everywhere
+  if (/\d\.\d/.test(text)) for (const m of text.matchAll(/(?<![\d.])(\d{1,3})\.(\d{1,3})\.(\d{1,3})\.(\d{1,3})(?![\d.]*\d)/g)) {
     const before = text.slice(Math.max(0, m.index! - 10), m.index!);
     if (m.slice(1).every((o) => Number(o) <= 255) && !/(version|v|ver\.?)\s*$/i.test(before)) {
       report('ip-address', { start: m.index!, end: m.index! + m[0].length }, { masked: mask(m[0], 3) });
       found.ip_address++;
     }
   }
-  for (const m of text.matchAll(/(?<![\w:])[0-9A-Fa-f]{0,4}(?::[0-9A-Fa-f]{0,4}){2,7}(?![\w:])/g)) {
+  const firstColon = text.indexOf(':');
+  if (firstColon >= 0 && text.indexOf(':', firstColon + 1) >= 0) for (const m of text.matchAll(/(?<![\w:])[0-9A-Fa-f]{0,4}(?::[0-9A-Fa-f]{0,4}){2,7}(?![\w:])/g)) {
     if (m[0].replace(/:/g, '').length >= 3 && isIPv6(m[0])) {
       report('ip-address', { start: m.index!, end: m.index! + m[0].length }, { masked: mask(m[0], 4) });
       found.ip_address++;
