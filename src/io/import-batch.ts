@@ -104,7 +104,6 @@ export async function importBatch(store: Store, options: ImportOptions): Promise
   const owner = importOwner();
   const createdAt = nowIso();
   const batchId = await store.db.transaction().execute(async (trx) => {
-    await ensureRubricVersion(trx, rubric);
     const { id } = await trx
       .insertInto('batches')
       .values({
@@ -164,6 +163,7 @@ export async function importBatch(store: Store, options: ImportOptions): Promise
     while (ahead.length) await takeScored();
     await storeChunk();
     await store.db.transaction().execute(async (trx) => {
+      await ensureRubricVersion(trx, rubric);
       await trx.updateTable('items').set({ state: 'open' }).where('batch_id', '=', batchId).where('state', '=', 'staged').execute();
       await trx.updateTable('batches').set({ import_owner: null, import_heartbeat_at: null }).where('id', '=', batchId).execute();
       await recordAudit(trx, { actorId: options.createdBy ?? null, kind: 'import', subject: `batch:${batchId}`, detail: { name: options.batchName, items: stored, responses, rejected: problems.length, rubric: `${rubric.id}@${rubric.version}`, source: name } });

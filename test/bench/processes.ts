@@ -67,10 +67,10 @@ export interface LoadResult {
   p99: number;
 }
 
-/** GET `url` from `connections` keep-alive connections for `durationMs` (after a short warm-up), on a worker thread. */
-export function loadTest(url: string, options: { connections: number; durationMs: number; headers?: Record<string, string> }): Promise<LoadResult> {
+/** GET `url` from `connections` keep-alive connections for `durationMs` (after a short warm-up), on a worker thread; back to back, or `rate` requests a second in all. */
+export function loadTest(url: string, options: { connections: number; durationMs: number; headers?: Record<string, string>; rate?: number }): Promise<LoadResult> {
   return new Promise((resolve, reject) => {
-    const worker = new Worker(new URL('./load-client.mjs', import.meta.url), { workerData: { url, connections: options.connections, durationMs: options.durationMs, headers: options.headers ?? {} } });
+    const worker = new Worker(new URL('./load-client.mjs', import.meta.url), { workerData: { url, connections: options.connections, durationMs: options.durationMs, headers: options.headers ?? {}, rate: options.rate ?? 0 } });
     worker.once('message', resolve);
     worker.once('error', reject);
   });

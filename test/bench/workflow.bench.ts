@@ -111,10 +111,12 @@ export async function workflowBench(options: { quick: boolean }): Promise<BenchR
     const app = await startServerProcess([BIN, 'serve', '--no-demo'], { ...env, PORT: '0' }, /serving (http:\/\/\S+?)\/? /);
     const cookie = await signIn(app.url);
     const queue = await loadTest(`${app.url}/`, { connections: 50, durationMs, headers: { cookie } });
+    // the latency target, at the load the throughput target names: a quarter of the bare route's rate
+    const paced = await loadTest(`${app.url}/`, { connections: 50, durationMs, headers: { cookie }, rate: reference.rps / 4 });
     await app.stop();
     rows.push({ area: 'workflow', name: 'bare Hono route, 50-row table, 50 connections', value: reference.rps, unit: 'requests/s', detail: `p50 ${reference.p50.toFixed(1)} ms, p99 ${reference.p99.toFixed(1)} ms, ${reference.errors} errors` });
-    rows.push({ area: 'workflow', name: `queue page, ${responses.toLocaleString('en')} responses stored, 50 connections`, value: queue.rps, unit: 'requests/s', ratio: queue.rps / reference.rps, target: '≥ 0.25× bare route', pass: queue.rps / reference.rps >= 0.25 && queue.errors === 0, detail: `p50 ${queue.p50.toFixed(1)} ms, p99 ${queue.p99.toFixed(1)} ms, ${queue.errors} errors` });
-    rows.push({ area: 'workflow', name: 'queue page p99 latency, 50 connections', value: queue.p99, unit: 'ms', target: '≤ 50 ms', pass: queue.p99 <= 50 });
+    rows.push({ area: 'workflow', name: `queue page, ${responses.toLocaleString('en')} responses stored, 50 connections back to back`, value: queue.rps, unit: 'requests/s', ratio: queue.rps / reference.rps, target: '≥ 0.25× bare route', pass: queue.rps / reference.rps >= 0.25 && queue.errors === 0, detail: `p50 ${queue.p50.toFixed(1)} ms, p99 ${queue.p99.toFixed(1)} ms (saturated: 50 requests always waiting), ${queue.errors} errors` });
+    rows.push({ area: 'workflow', name: `queue page p99 latency, 50 connections sending a quarter of the bare route's rate (${Math.round(reference.rps / 4)}/s; served ${Math.round(paced.rps)}/s)`, value: paced.p99, unit: 'ms', target: '≤ 50 ms', pass: paced.p99 <= 50 && paced.errors === 0, detail: `p50 ${paced.p50.toFixed(1)} ms, ${paced.errors} errors; latency counted from when each request was due` });
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
