@@ -55,7 +55,7 @@ export function QueueTable({ rows }: { rows: QueueRow[] }) {
 const BAND_LABELS: Record<Band, string> = { pass: 'pass', review: 'needs a look', fail: 'fail' };
 
 /** The queue's filters: a plain GET form, so a filtered queue is a link that can be shared. */
-function QueueFilters(props: { filter: QueueFilter; batches: { id: number; name: string }[]; checks: readonly string[] }) {
+export function QueueFilters(props: { filter: QueueFilter; batches: { id: number; name: string }[]; checks: readonly string[] }) {
   const { filter } = props;
   return (
     <form class="filters" method="get" action="/" aria-label="Filter the queue">
@@ -81,8 +81,8 @@ function QueueFilters(props: { filter: QueueFilter; batches: { id: number; name:
   );
 }
 
-/** The queue page; `table` is the QueueTable already rendered (see QueueTableCache). */
-export function QueuePage(props: { user: SessionUser; csrfToken: string; table: HtmlEscapedString; counts: Record<ItemState, number>; filter: QueueFilter; batches: { id: number; name: string }[]; checks: readonly string[] }) {
+/** The queue page; `table` and `filters` are QueueTable and QueueFilters already rendered (see QueueTableCache). */
+export function QueuePage(props: { user: SessionUser; csrfToken: string; table: HtmlEscapedString; filters: HtmlEscapedString; counts: Record<ItemState, number>; filter: QueueFilter }) {
   const { counts } = props;
   return (
     <Layout title="Queue" user={props.user} csrfToken={props.csrfToken}>
@@ -94,7 +94,7 @@ export function QueuePage(props: { user: SessionUser; csrfToken: string; table: 
         <li><strong>{counts.adjudication}</strong> need adjudication</li>
         <li><strong>{counts.final}</strong> final</li>
       </ul>
-      <QueueFilters filter={props.filter} batches={props.batches} checks={props.checks} />
+      {props.filters}
       {props.table}
     </Layout>
   );

@@ -19,15 +19,19 @@ async function queueStamp(db: Kysely<Database>): Promise<string> {
 }
 
 /**
- * The queue table's HTML per filter, reused while the data under it is unchanged. Every
- * reviewer sees the same queue, and a busy team reloads it far more often than it changes:
- * serving the stored table costs one indexed query instead of reading and rendering 50 items.
+ * Parts of the queue page (the table, the filter form) per filter, reused while the data under
+ * them is unchanged. Every reviewer sees the same queue, and a busy team reloads it far more
+ * often than it changes: serving the stored parts costs one indexed query instead of reading
+ * and rendering 50 items. Read `stamp(db)` once per request and pass it to each `get`.
  */
 export class QueueTableCache {
   private readonly entries = new Map<string, { stamp: string; at: number; html: string }>();
 
-  async get(db: Kysely<Database>, key: string, build: () => Promise<string>): Promise<string> {
-    const stamp = await queueStamp(db);
+  stamp(db: Kysely<Database>): Promise<string> {
+    return queueStamp(db);
+  }
+
+  async get(stamp: string, key: string, build: () => Promise<string>): Promise<string> {
     const entry = this.entries.get(key);
     const now = Date.now();
     if (entry && entry.stamp === stamp && now - entry.at < MAX_AGE_MS) return entry.html;

@@ -8,7 +8,7 @@ import { HttpError } from '../../errors.ts';
 import { batchNames, countItemsByState, listQueue, type QueueFilter } from '../../store/repos/queue.ts';
 import { CHECK_IDS } from '../../checks/registry.ts';
 import { BAND_NAMES, type Band } from '../../rubric/spec.ts';
-import { QueuePage, QueueTable } from '../../../views/queue-page.tsx';
+import { QueueFilters, QueuePage, QueueTable } from '../../../views/queue-page.tsx';
 import { ItemPage } from '../../../views/item-page.tsx';
 import type { AppEnv } from '../context.ts';
 import { requireRole } from '../middleware/require-role.ts';
@@ -57,10 +57,15 @@ export function queueRoutes() {
   app.get('/', requireRole(...ANY_ROLE), async (c) => {
     const { db } = c.get('store');
     const filter = queueFilterFrom(c.req.query());
-    const table = raw(await tables.get(db, JSON.stringify(filter), async () => String(await (<QueueTable rows={await listQueue(db, filter)} />).toString())));
+    const key = JSON.stringify(filter);
+    const stamp = await tables.stamp(db);
+    const table = raw(await tables.get(stamp, `table ${key}`, async () => String(await (<QueueTable rows={await listQueue(db, filter)} />).toString())));
     if (c.req.header('hx-request')) return c.html(table);
-    const [counts, batches] = await Promise.all([recentStateCounts(db), batchNames(db)]);
-    return c.html(<QueuePage user={c.get('user')!} csrfToken={c.get('csrfToken')} table={table} counts={counts} filter={filter} batches={batches} checks={CHECK_IDS} />);
+    const [counts, filters] = await Promise.all([
+      recentStateCounts(db),
+      tables.get(stamp, `filters ${key}`, async () => String(await (<QueueFilters filter={filter} batches={await batchNames(db)} checks={CHECK_IDS} />).toString())),
+    ]);
+    return c.html(<QueuePage user={c.get('user')!} csrfToken={c.get('csrfToken')} table={table} filters={raw(filters)} counts={counts} filter={filter} />);
   });
 
   app.get('/items/:id{[0-9]+}', requireRole(...ANY_ROLE), async (c) => {

@@ -1,0 +1,10 @@
+import { openStore } from '../../src/store/connect.ts';
+import { migrate } from '../../src/store/migrate.ts';
+import { storeBatch } from '../../src/store/repos/batches.ts';
+import { createUser } from '../../src/store/repos/users.ts';
+const store = await openStore({ kind: 'sqlite', file: '/tmp/q/q.db' });
+await migrate(store);
+const items = Array.from({ length: 20000 }, (_, i) => ({ promptId: `q${i}`, prompt: `Question ${i}: how should I store fuel on a rainy trip?`, responses: Array.from({ length: 5 }, (_, k) => ({ responseId: `r${k}`, text: 'x'.repeat(800) })), priority: (i * 7919) % 1000 }));
+await storeBatch(store.db, { name: 'q', sourceHash: 'q', sourceName: 'q', items, reviewsRequired: 2 });
+await createUser(store.db, { username: 'bench', displayName: 'Bench', password: 'bench-password-1', roles: ['reviewer'] });
+await store.close();

@@ -1,0 +1,16 @@
+import { fileURLToPath } from 'node:url';
+import { BIN, loadTest, startServerProcess } from './processes.ts';
+const bare = await startServerProcess([fileURLToPath(new URL('./run-ts.mjs', import.meta.url)), fileURLToPath(new URL('./bare-table-server.tsx', import.meta.url))], {}, /serving (http:\/\/\S+?)\/?$/m);
+const ref = await loadTest(bare.url, { connections: 50, durationMs: 5000 });
+await bare.stop();
+console.log('bare', ref);
+const app = await startServerProcess([BIN, 'serve', '--no-demo'], { PLUMBLINE_DB: '/tmp/q/q.db', PORT: '0' }, /serving (http:\/\/\S+?)\/? /);
+const base = app.url;
+const page = await fetch(`${base}/login`);
+const cookie0 = page.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+const csrf = (await page.text()).match(/name="csrf-token" content="([^"]+)"/)![1];
+const res = await fetch(`${base}/login`, { method: 'POST', redirect: 'manual', headers: { cookie: cookie0, origin: base, 'content-type': 'application/x-www-form-urlencoded' }, body: new URLSearchParams({ username: 'bench', password: 'bench-password-1', _csrf: csrf, next: '/' }) });
+const cookie = [cookie0, ...res.headers.getSetCookie().map((c) => c.split(';')[0])].join('; ');
+console.log('saturated', await loadTest(`${base}/`, { connections: 50, durationMs: 5000, headers: { cookie } }));
+console.log('paced', ref.rps / 4, await loadTest(`${base}/`, { connections: 50, durationMs: 5000, headers: { cookie }, rate: ref.rps / 4 }));
+await app.stop();
