@@ -155,18 +155,25 @@ export function pairsOf(item: DecidedItem, includeTies: boolean): PairRecord[] {
         other_text: worse.text,
         other_rank: item.ranking[worse.responseId],
         tie: ra === rb,
-        decided_by: item.decidedBy,
-        decided_at: item.decidedAt,
-        reviewer_count: item.reviewers.length,
-        reviewer_ids: item.reviewers,
-        reviewer_agreement: item.agreement,
-        rubric_id: item.rubric.id,
-        rubric_version: item.rubric.version,
-        rationale: item.rationale,
+        ...decisionFields(item),
       });
     }
   }
   return out;
+}
+
+/** How an item's ranking was decided: the provenance every export record carries. */
+function decisionFields(item: DecidedItem) {
+  return {
+    decided_by: item.decidedBy,
+    decided_at: item.decidedAt,
+    reviewer_count: item.reviewers.length,
+    reviewer_ids: item.reviewers,
+    reviewer_agreement: item.agreement,
+    rubric_id: item.rubric.id,
+    rubric_version: item.rubric.version,
+    rationale: item.rationale,
+  };
 }
 
 /** An export record of the rankings format: one per decided item. */
@@ -176,14 +183,7 @@ export function rankingOf(item: DecidedItem) {
     prompt_id: item.promptId,
     prompt: item.prompt,
     responses: item.responses.map((r) => ({ response_id: r.responseId, text: r.text, rank: item.ranking[r.responseId] })).sort((x, y) => x.rank - y.rank),
-    decided_by: item.decidedBy,
-    decided_at: item.decidedAt,
-    reviewer_count: item.reviewers.length,
-    reviewer_ids: item.reviewers,
-    reviewer_agreement: item.agreement,
-    rubric_id: item.rubric.id,
-    rubric_version: item.rubric.version,
-    rationale: item.rationale,
+    ...decisionFields(item),
     review_rationales: item.reviewRationales,
   };
 }
