@@ -199,17 +199,22 @@ export function analyze(text: string, context: AnalysisContext = {}): Doc {
   return doc;
 }
 
-const EDGE_START_CHARS = new Set('"“”‘([{.,;:!?\'’');
-const EDGE_END_CHARS = new Set('"“”’)]}.,;:!?');
-const SPACE = /\s/;
+const codes = (chars: string) => new Set([...chars].map((c) => c.charCodeAt(0)));
+const EDGE_START_CODES = codes('"“”‘([{.,;:!?\'’');
+const EDGE_END_CODES = codes('"“”’)]}.,;:!?');
 
-/** Characters left out at a word's start (punctuation, quotes, apostrophes, white space). */
-function edgeStart(ch: string): boolean {
-  return EDGE_START_CHARS.has(ch) || SPACE.test(ch);
+/** Is the character code a letter or digit of ASCII (never an edge: the common case, decided first)? */
+function asciiAlphanumeric(c: number): boolean {
+  return (c >= 97 && c <= 122) || (c >= 65 && c <= 90) || (c >= 48 && c <= 57);
 }
 
-function edgeEnd(ch: string): boolean {
-  return EDGE_END_CHARS.has(ch) || SPACE.test(ch);
+/** Characters left out at a word's start (punctuation, quotes, apostrophes, white space). */
+function edgeStart(c: number): boolean {
+  return !asciiAlphanumeric(c) && (EDGE_START_CODES.has(c) || isSpaceCode(c));
+}
+
+function edgeEnd(c: number): boolean {
+  return !asciiAlphanumeric(c) && (EDGE_END_CODES.has(c) || isSpaceCode(c));
 }
 
 /** Groups tokens not separated by white space into words and normalises each (see `MatchWord`). */
@@ -224,8 +229,8 @@ function matchWords(text: string, tokens: Token[]): MatchWord[] {
     const to = tokens[last].end;
     let start = from;
     let end = to;
-    while (start < end && edgeStart(text[start])) start++;
-    while (end > start && edgeEnd(text[end - 1])) end--;
+    while (start < end && edgeStart(text.charCodeAt(start))) start++;
+    while (end > start && edgeEnd(text.charCodeAt(end - 1))) end--;
     if (start >= end) return;
     const lower = first === last && start === from && end === to ? tokens[first].lower : text.slice(start, end).toLowerCase();
     const norm = lower.includes('’') ? lower.replace(/’/g, "'") : lower;

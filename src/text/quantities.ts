@@ -25,6 +25,14 @@ export interface Quantity {
 const GLUED = /^(\d+(?:[.,]\d+)?)([a-z%°]+)$/i;
 
 /** A month name, with or without an abbreviation's full stop. */
+/** Number words and their values, as a Map: an object's `in` would also find "constructor". */
+const NUMBER_WORD_VALUES = new Map(Object.entries(NUMBER_WORDS));
+
+function startsWithDigit(text: string): boolean {
+  const c = text.charCodeAt(0);
+  return c >= 48 && c <= 57;
+}
+
 function isMonth(t: Token | undefined): boolean {
   if (!t || t.kind !== 'word') return false;
   return MONTHS.has(t.lower) || (t.lower.endsWith('.') && MONTHS.has(t.lower.slice(0, -1)));
@@ -36,7 +44,7 @@ function numericValue(t: Token): number | null {
     if (Number.isFinite(n)) return n;
     return null;
   }
-  if (t.kind === 'word' && t.lower in NUMBER_WORDS) return NUMBER_WORDS[t.lower];
+  if (t.kind === 'word') return NUMBER_WORD_VALUES.get(t.lower) ?? null;
   return null;
 }
 
@@ -67,7 +75,7 @@ export function findQuantities(doc: Doc): Quantity[] {
       continue;
     }
     if (t.kind === 'number' && isMonth(tokens[i + 1])) continue; // the day of a date
-    if (t.kind !== 'number' && !(t.kind === 'word' && (t.lower in NUMBER_WORDS || /^\d/.test(t.lower)))) continue;
+    if (t.kind !== 'number' && !(t.kind === 'word' && (NUMBER_WORD_VALUES.has(t.lower) || startsWithDigit(t.lower)))) continue;
     let value = numericValue(t);
     let unitToken: Token | undefined;
     let unitName: string | null = null;
