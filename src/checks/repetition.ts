@@ -1,6 +1,6 @@
 import { deflateRawSync } from 'node:zlib';
-import type { Token } from '../text/analyze.ts';
-import { defineCheck } from './define-check.ts';
+import type { Doc, Token } from '../text/analyze.ts';
+import { defineCheck, type Report } from './define-check.ts';
 
 interface Params {
   n: number;
@@ -20,11 +20,11 @@ interface Params {
 function ngramIds(ws: Token[], maxN: number): { levels: Int32Array[]; distinct: number[] } {
   const words = new Map<string, number>();
   const first = new Int32Array(ws.length);
-  ws.forEach((w, i) => {
-    let id = words.get(w.lower);
-    if (id === undefined) words.set(w.lower, (id = words.size));
+  for (let i = 0; i < ws.length; i++) {
+    let id = words.get(ws[i].lower);
+    if (id === undefined) words.set(ws[i].lower, (id = words.size));
     first[i] = id;
-  });
+  }
   const levels = [new Int32Array(0), first];
   const distinct = [0, words.size];
   for (let n = 2; n <= maxN; n++) {
@@ -83,9 +83,7 @@ function mostFrequent(ids: Int32Array, distinct: number, ws: Token[], n: number,
   for (const id of ids) if (++counts[id] > counts[best]) best = id;
   if (counts[best] < 2) return { positions: [], share: 0 };
   const positions: number[] = [];
-  ids.forEach((id, i) => {
-    if (id === best) positions.push(i);
-  });
+  for (let i = 0; i < ids.length; i++) if (ids[i] === best) positions.push(i);
   let chars = 0;
   for (let k = 0; k < n; k++) chars += ws[positions[0] + k].text.length;
   return { positions, share: Math.min(1, (positions.length * chars) / wordChars) };
@@ -93,6 +91,69 @@ function mostFrequent(ids: Int32Array, distinct: number, ws: Token[], n: number,
 
 /** How many of the latest earlier sentences holding a shingle are compared through it. */
 const MAX_CANDIDATES = 50;
+
+/**
+ * Near-duplicate sentences: Jaccard similarity of word 3-gram shingles (a sentence under 3 words
+ * is one shingle of its own), each sentence compared only with the latest earlier sentences
+ * that share a shingle with it. Shingle ids are dense (from `ngramIds`), so the index, the
+ * per-sentence sets and the shared counts are arrays rather than maps. Reports each repeat and
+ * returns how many sentences repeat an earlier one.
+ */
+function nearDuplicates(doc: Doc, shingles: Int32Array, shingleIds: number, threshold: number, report: Report): number {
+  const ws = doc.wordTokens;
+  const postings: number[][] = [];
+  const shortSentences = new Map<string, number>();
+  const sizes: number[] = [];
+  const lastAdded: number[] = []; // by shingle id: 1 + the sentence that last added it
+  const shared = new Int32Array(doc.sentences.length);
+  const touched: number[] = [];
+  const own: number[] = [];
+  let duplicates = 0;
+  let w = 0;
+  for (const s of doc.sentences) {
+    const from = w;
+    while (w < ws.length && ws[w].sentence === s.index) w++;
+    own.length = 0;
+    if (w - from >= 3) {
+      for (let i = from; i <= w - 3; i++) {
+        const id = shingles[i];
+        if (lastAdded[id] !== s.index + 1) {
+          lastAdded[id] = s.index + 1;
+          own.push(id);
+        }
+      }
+    } else if (w > from) {
+      const key = ws.slice(from, w).map((x) => x.lower).join(' ');
+      let id = shortSentences.get(key);
+      if (id === undefined) shortSentences.set(key, (id = shingleIds + shortSentences.size));
+      own.push(id);
+    }
+    sizes.push(own.length);
+    if (!own.length) continue;
+    for (const id of own) {
+      const list = postings[id];
+      if (!list) continue;
+      for (let k = Math.max(0, list.length - MAX_CANDIDATES); k < list.length; k++) {
+        if (shared[list[k]]++ === 0) touched.push(list[k]);
+      }
+    }
+    let best = -1;
+    let bestSim = 0;
+    for (const j of touched) {
+      const sim = shared[j] / (own.length + sizes[j] - shared[j]);
+      if (sim > bestSim) [best, bestSim] = [j, sim];
+      shared[j] = 0;
+    }
+    touched.length = 0;
+    if (best >= 0 && bestSim >= threshold) {
+      duplicates++;
+      report('repeated-sentence', s, { similarity: bestSim.toFixed(2) }, doc.sentences[best]);
+    }
+    for (const id of own) (postings[id] ??= []).push(s.index);
+  }
+  return duplicates;
+}
+
 
 /**
  * Repetition: seq-rep-n (Welleck et al. 2019), distinct-1 and distinct-2 (Li et al. 2016, over
@@ -133,48 +194,7 @@ export const repetition = defineCheck<Params>({
     if (distinct1 === null) undefinedMetrics.distinct_1 = 'no words';
     if (distinct2 === null) undefinedMetrics.distinct_2 = 'fewer than 2 words';
 
-    // near-duplicate sentences
-    // Shingles are the sentence's word 3-grams; a sentence under 3 words is one shingle of its own.
-    const index = new Map<number, number[]>();
-    const shortSentences = new Map<string, number>();
-    const sentenceShingles: Set<number>[] = [];
-    let duplicates = 0;
-    let w = 0;
-    for (const s of doc.sentences) {
-      const from = w;
-      while (w < ws.length && ws[w].sentence === s.index) w++;
-      const own = new Set<number>();
-      if (w - from >= 3) for (let i = from; i <= w - 3; i++) own.add(levels[3][i]);
-      else if (w > from) {
-        const key = ws.slice(from, w).map((x) => x.lower).join(' ');
-        let id = shortSentences.get(key);
-        if (id === undefined) shortSentences.set(key, (id = -1 - shortSentences.size));
-        own.add(id);
-      }
-      sentenceShingles.push(own);
-      if (!own.size) continue;
-      const seen = new Map<number, number>();
-      for (const sh of own) {
-        const list = index.get(sh);
-        if (list) for (let k = Math.max(0, list.length - MAX_CANDIDATES); k < list.length; k++) seen.set(list[k], (seen.get(list[k]) ?? 0) + 1);
-      }
-      let best = -1;
-      let bestSim = 0;
-      for (const [j, shared] of seen) {
-        const sim = shared / (own.size + sentenceShingles[j].size - shared);
-        if (sim > bestSim) [best, bestSim] = [j, sim];
-      }
-      if (best >= 0 && bestSim >= params.nearDuplicate) {
-        duplicates++;
-        const earlier = doc.sentences[best];
-        report('repeated-sentence', s, { similarity: bestSim.toFixed(2) }, earlier);
-      }
-      for (const sh of own) {
-        const list = index.get(sh);
-        if (list) list.push(s.index);
-        else index.set(sh, [s.index]);
-      }
-    }
+    const duplicates = nearDuplicates(doc, levels[3], distinct[3], params.nearDuplicate, report);
 
     // most frequent n-gram character share; phrases are pointed at for the longest n over its limit
     const wordChars = ws.reduce((n, w) => n + w.text.length, 0);
