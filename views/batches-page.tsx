@@ -4,17 +4,11 @@ import type { RubricSummary } from '../src/store/repos/rubrics.ts';
 import type { SessionUser } from '../src/web/context.ts';
 import { Layout } from './layout.tsx';
 
-export function BatchesPage(props: { user: SessionUser; csrfToken: string; batches: BatchSummary[]; rubrics: RubricSummary[]; ok?: string; error?: string; problems?: { line: number; field: string | null; message: string }[] }) {
+export function BatchesPage(props: { user: SessionUser; csrfToken: string; batches: BatchSummary[]; rubrics: RubricSummary[]; error?: string }) {
   return (
     <Layout title="Batches" user={props.user} csrfToken={props.csrfToken}>
       <h1>Batches</h1>
-      {props.ok && <div class="notice" role="status">{props.ok}</div>}
-      {props.error && (
-        <div class="error-box" role="alert">
-          <p>{props.error}</p>
-          {props.problems && <ul>{props.problems.slice(0, 200).map((p) => <li>{`line ${p.line}${p.field ? `, ${p.field}` : ''}: ${p.message}`}</li>)}</ul>}
-        </div>
-      )}
+      {props.error && <div class="error-box" role="alert"><p>{props.error}</p></div>}
       {props.batches.length === 0 ? (
         <p class="empty">No batches yet.</p>
       ) : (
