@@ -87,8 +87,9 @@ export const certainty = defineCheck<Params>({
         count++;
       }
     }
-    const links = [...text.matchAll(URL)].map((m) => ({ start: m.index!, end: m.index! + m[0].replace(/[.,;:!?]+$/, '').length }));
-    const dois = [...text.matchAll(DOI)].map((m) => ({ start: m.index!, end: m.index! + m[0].replace(/[.,;:!?)]+$/, '').length }));
+    // the patterns are tried only on texts that can hold a match
+    const links = !/http/i.test(text) ? [] : [...text.matchAll(URL)].map((m) => ({ start: m.index!, end: m.index! + m[0].replace(/[.,;:!?]+$/, '').length }));
+    const dois = !text.includes('10.') ? [] : [...text.matchAll(DOI)].map((m) => ({ start: m.index!, end: m.index! + m[0].replace(/[.,;:!?)]+$/, '').length }));
     for (const u of findPhrases(doc, params.unsourced)) {
       const sentence = sentenceSpanAt(doc, u.start);
       const sourced = [...links, ...dois].some((l) => l.start >= sentence.start && l.start < sentence.end);

@@ -32,22 +32,29 @@ interface SentenceFacts {
   quantities: Quantity[];
 }
 
+/** Shared by every sentence with no negated stem or no antonym: most sentences. */
+const NONE: Set<string> = new Set();
+
 function facts(doc: Doc, s: Sentence, quantities: Quantity[]): SentenceFacts {
   const stems = new Set<string>();
-  const negatedStems = new Set<string>();
-  const antonymWords = new Set<string>();
+  let negatedStems = NONE;
+  let antonymWords = NONE;
   let conditional = false;
   for (let i = s.firstToken; i < s.endToken; i++) {
     const t = doc.tokens[i];
     if (t.kind !== 'word' || t.clitic) continue;
     if (CONDITIONAL.has(t.lower)) conditional = true;
     if (ANTONYMS.has(t.lower)) {
+      if (antonymWords === NONE) antonymWords = new Set();
       antonymWords.add(t.lower);
       continue;
     }
     if (t.stop || t.cue || t.lower.length < 2) continue;
     stems.add(t.stem);
-    if (t.negated) negatedStems.add(t.stem);
+    if (t.negated) {
+      if (negatedStems === NONE) negatedStems = new Set();
+      negatedStems.add(t.stem);
+    }
   }
   return { sentence: s, stems, negatedStems, antonymWords, conditional, quantities };
 }
@@ -59,8 +66,20 @@ function antonymSwap(a: SentenceFacts, b: SentenceFacts): string | null {
   return null;
 }
 
-function polarityFlip(a: SentenceFacts, b: SentenceFacts, shared: string[]): boolean {
-  return shared.some((s) => a.negatedStems.has(s) !== b.negatedStems.has(s));
+/** Is a stem the two sentences share (through the index) negated in one only? */
+function polarityFlip(a: SentenceFacts, b: SentenceFacts, index: Map<string, number[]>): boolean {
+  if (a.negatedStems === NONE && b.negatedStems === NONE) return false;
+  for (const stem of b.stems) {
+    if (!a.stems.has(stem) || !sharedThrough(index, stem)) continue;
+    if (a.negatedStems.has(stem) !== b.negatedStems.has(stem)) return true;
+  }
+  return false;
+}
+
+/** Does a stem link sentences in the index (it is there, and in no more than MAX_POSTING of them)? */
+function sharedThrough(index: Map<string, number[]>, stem: string): boolean {
+  const posting = index.get(stem);
+  return posting !== undefined && posting.length <= MAX_POSTING;
 }
 
 function numberClash(a: SentenceFacts, b: SentenceFacts): [Quantity, Quantity] | null {
@@ -107,21 +126,19 @@ export const contradiction = defineCheck<{ minShared: number }>({
     }
     const all = doc.sentences.map((s) => facts(doc, s, bySentence.get(s.index) ?? []));
     const index = new Map<string, number[]>();
+    const sharedCount = new Int32Array(all.length);
+    const touched: number[] = [];
     let pairsCompared = 0;
     let found = 0;
     for (const b of all) {
-      const sharedCount = new Map<number, string[]>();
       for (const stem of b.stems) {
         const posting = index.get(stem);
         if (!posting || posting.length > MAX_POSTING) continue;
-        for (const j of posting) {
-          const list = sharedCount.get(j);
-          if (list) list.push(stem);
-          else sharedCount.set(j, [stem]);
-        }
+        for (const j of posting) if (sharedCount[j]++ === 0) touched.push(j);
       }
-      for (const [j, shared] of sharedCount) {
-        if (shared.length < params.minShared) continue;
+      for (const j of touched) {
+        const shared = sharedCount[j];
+        if (shared < params.minShared) continue;
         const a = all[j];
         pairsCompared++;
         if (a.conditional || b.conditional) continue;
@@ -134,7 +151,7 @@ export const contradiction = defineCheck<{ minShared: number }>({
           found++;
           break;
         }
-        const flip = polarityFlip(a, b, shared);
+        const flip = polarityFlip(a, b, index);
         if (flip !== Boolean(swap)) {
           if (flip) report('negation', b.sentence, undefined, a.sentence);
           else report('antonym', b.sentence, { pair: swap! }, a.sentence);
@@ -142,6 +159,8 @@ export const contradiction = defineCheck<{ minShared: number }>({
           break;
         }
       }
+      for (const j of touched) sharedCount[j] = 0;
+      touched.length = 0;
       for (const stem of b.stems) {
         const posting = index.get(stem);
         if (posting) posting.push(b.sentence.index);

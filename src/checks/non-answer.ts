@@ -1,25 +1,52 @@
 import { contentStems, isWord, type Doc } from '../text/analyze.ts';
 import { defineCheck, type Evaluation } from './define-check.ts';
 
+/**
+ * TF-IDF weighting with IDF from the documents given (smoothed: ln((1 + n) / (1 + df)) + 1),
+ * and the cosine similarity of two documents' vectors.
+ */
+export class TfIdf {
+  private readonly df = new Map<string, number>();
+  private readonly n: number;
+
+  constructor(corpus: string[][]) {
+    const seenIn = new Map<string, number>();
+    corpus.forEach((doc, d) => {
+      for (const s of doc) {
+        if (seenIn.get(s) === d) continue;
+        seenIn.set(s, d);
+        this.df.set(s, (this.df.get(s) ?? 0) + 1);
+      }
+    });
+    this.n = corpus.length;
+  }
+
+  /** The weighted vector of a stem list, with its Euclidean norm. */
+  vector(stems: string[]): { weights: Map<string, number>; norm: number } {
+    const weights = new Map<string, number>();
+    for (const s of stems) weights.set(s, (weights.get(s) ?? 0) + 1);
+    let squares = 0;
+    for (const [s, count] of weights) {
+      const w = count * (Math.log((1 + this.n) / (1 + (this.df.get(s) ?? 0))) + 1);
+      weights.set(s, w);
+      squares += w * w;
+    }
+    return { weights, norm: Math.sqrt(squares) };
+  }
+
+  static cosine(a: { weights: Map<string, number>; norm: number }, b: { weights: Map<string, number>; norm: number }): number {
+    const [small, large] = a.weights.size <= b.weights.size ? [a, b] : [b, a];
+    let dot = 0;
+    for (const [s, w] of small.weights) dot += w * (large.weights.get(s) ?? 0);
+    const d = a.norm * b.norm;
+    return d ? dot / d : 0;
+  }
+}
+
 /** Cosine similarity of two TF-IDF vectors given as stem lists; IDF from the documents given. */
 export function tfidfCosine(a: string[], b: string[], corpus: string[][]): number {
-  const df = new Map<string, number>();
-  for (const doc of corpus) for (const s of new Set(doc)) df.set(s, (df.get(s) ?? 0) + 1);
-  const n = corpus.length;
-  const idf = (s: string) => Math.log((1 + n) / (1 + (df.get(s) ?? 0))) + 1;
-  const vec = (stems: string[]) => {
-    const tf = new Map<string, number>();
-    for (const s of stems) tf.set(s, (tf.get(s) ?? 0) + 1);
-    for (const [s, c] of tf) tf.set(s, c * idf(s));
-    return tf;
-  };
-  const va = vec(a);
-  const vb = vec(b);
-  let dot = 0;
-  for (const [s, w] of va) dot += w * (vb.get(s) ?? 0);
-  const norm = (v: Map<string, number>) => Math.sqrt([...v.values()].reduce((x, w) => x + w * w, 0));
-  const d = norm(va) * norm(vb);
-  return d ? dot / d : 0;
+  const model = new TfIdf(corpus);
+  return TfIdf.cosine(model.vector(a), model.vector(b));
 }
 
 function jaccard(a: Set<string>, b: Set<string>): number {
@@ -95,11 +122,12 @@ export const nonAnswer = defineCheck<{ minWords: number; minSimilarity: number; 
 
     const siblings = doc.context.siblings ?? [];
     const corpus = [promptStems, contentStems(doc), ...siblings.map((d) => contentStems(d))];
-    const own = contentStems(doc);
-    const similarity = tfidfCosine(own, promptStems, corpus);
+    const model = new TfIdf(corpus);
+    const own = model.vector(contentStems(doc));
+    const similarity = TfIdf.cosine(own, model.vector(promptStems));
     // Good answers often share few words with a short prompt but many with the other candidates:
     // a response is off-topic only when it is far from both.
-    const siblingSimilarity = Math.max(0, ...siblings.map((d) => tfidfCosine(own, contentStems(d), corpus)));
+    const siblingSimilarity = Math.max(0, ...siblings.map((d) => TfIdf.cosine(own, model.vector(contentStems(d)))));
     const topical = Math.max(similarity, siblingSimilarity);
     // With no other candidates to compare with, a short answer sharing no words with a short
     // prompt is weak evidence ("Light is fast…" for a question about thunder): ask for more text.

@@ -1,4 +1,5 @@
-import { audienceFromPrompt } from '../text/readability/audience.ts';
+import { audienceFromPrompt, type AudienceTarget } from '../text/readability/audience.ts';
+import type { Doc } from '../text/analyze.ts';
 import { readabilityCounts } from '../text/readability/counts.ts';
 import {
   automatedReadabilityIndex, colemanLiau, consensusGrade, daleChall, fleschKincaidGrade, fleschReadingEase, gunningFog, smog,
@@ -6,6 +7,18 @@ import {
 import { defineCheck } from './define-check.ts';
 
 const round = (x: number | null) => (x === null ? null : Math.round(x * 1000) / 1000);
+
+const audiences = new WeakMap<Doc, AudienceTarget | null>();
+
+/** The audience a prompt names, read once per prompt (its responses share it). */
+function promptAudience(prompt: Doc): AudienceTarget | null {
+  let audience = audiences.get(prompt);
+  if (audience === undefined) {
+    audience = audienceFromPrompt(prompt.text);
+    audiences.set(prompt, audience);
+  }
+  return audience;
+}
 
 /** Readability counts and the published formulas, and whether the text suits its audience. */
 export const readability = defineCheck<{ targetGrade: number | null; tolerance: number; minSentenceWords: number }>({
@@ -25,7 +38,7 @@ export const readability = defineCheck<{ targetGrade: number | null; tolerance: 
   evaluate(doc, params, report) {
     const c = readabilityCounts(doc);
     const grade = consensusGrade(c);
-    const audience = params.targetGrade !== null ? { grade: params.targetGrade, because: 'rubric' } : doc.context.prompt ? audienceFromPrompt(doc.context.prompt.text) : null;
+    const audience = params.targetGrade !== null ? { grade: params.targetGrade, because: 'rubric' } : doc.context.prompt ? promptAudience(doc.context.prompt) : null;
     const metrics = {
       sentences: c.sentences,
       words: c.words,

@@ -13,50 +13,66 @@ interface Params {
 }
 
 /**
+ * Scratch space reused from one document to the next: the hash tables and counters below are
+ * sized for the largest document seen so far and reset, not reallocated, for each new one.
+ */
+let scratch = new Int32Array(0);
+
+function scratchOf(size: number): Int32Array {
+  if (scratch.length < size) scratch = new Int32Array(Math.max(size, scratch.length * 2, 1024));
+  return scratch;
+}
+
+/**
  * Dense ids for the n-grams of a text, for n = 1 … maxN: `levels[n][i]` is the id of the n-gram
  * starting at word i, equal n-grams get equal ids, and `distinct[n]` counts them. Each level is
  * built from the one before (id of the (n−1)-gram, next word), so keys stay small integers.
  */
 function ngramIds(ws: Token[], maxN: number): { levels: Int32Array[]; distinct: number[] } {
-  const words = new Map<string, number>();
+  const wordIds = new Map<string, number>();
   const first = new Int32Array(ws.length);
   for (let i = 0; i < ws.length; i++) {
-    let id = words.get(ws[i].lower);
-    if (id === undefined) words.set(ws[i].lower, (id = words.size));
+    let id = wordIds.get(ws[i].lower);
+    if (id === undefined) wordIds.set(ws[i].lower, (id = wordIds.size));
     first[i] = id;
   }
   const levels = [new Int32Array(0), first];
-  const distinct = [0, words.size];
+  const distinct = [0, wordIds.size];
   for (let n = 2; n <= maxN; n++) {
     const previous = levels[n - 1];
     const count = Math.max(0, ws.length - n + 1);
     const ids = new Int32Array(count);
-    const dense = new PairIds(count);
-    for (let i = 0; i < count; i++) ids[i] = dense.idOf(previous[i], first[i + n - 1]);
+    pairIds.reset(count);
+    for (let i = 0; i < count; i++) ids[i] = pairIds.idOf(previous[i], first[i + n - 1]);
     levels.push(ids);
-    distinct.push(dense.size);
+    distinct.push(pairIds.size);
   }
   return { levels, distinct };
 }
 
 /**
- * Dense ids for pairs of small integers, in an open-addressing table sized for `capacity`
- * pairs: the n-gram levels' inner loop, where a Map keyed by numbers would dominate the cost.
+ * Dense ids for pairs of small integers, in an open-addressing table sized for the pairs of one
+ * document: the n-gram levels' inner loop, where a Map keyed by numbers would dominate the cost.
+ * One table serves every document; `reset` empties it.
  */
 class PairIds {
-  private readonly keysA: Int32Array;
-  private readonly keysB: Int32Array;
-  private readonly values: Int32Array;
-  private readonly mask: number;
+  private keysA = new Int32Array(0);
+  private keysB = new Int32Array(0);
+  private values = new Int32Array(0);
+  private mask = 0;
   size = 0;
 
-  constructor(capacity: number) {
+  reset(capacity: number): void {
     let slots = 16;
     while (slots < capacity * 2) slots *= 2;
-    this.keysA = new Int32Array(slots).fill(-1);
-    this.keysB = new Int32Array(slots);
-    this.values = new Int32Array(slots);
+    if (this.keysA.length < slots) {
+      this.keysA = new Int32Array(slots);
+      this.keysB = new Int32Array(slots);
+      this.values = new Int32Array(slots);
+    }
+    this.keysA.fill(-1, 0, slots);
     this.mask = slots - 1;
+    this.size = 0;
   }
 
   idOf(a: number, b: number): number {
@@ -75,10 +91,12 @@ class PairIds {
   }
 }
 
+const pairIds = new PairIds();
+
 /** The most frequent id, where it occurs, and the share of word characters its occurrences cover (Rae et al. 2021). */
 function mostFrequent(ids: Int32Array, distinct: number, ws: Token[], n: number, wordChars: number): { positions: number[]; share: number | null } {
   if (!ids.length || !wordChars) return { positions: [], share: null };
-  const counts = new Int32Array(distinct);
+  const counts = scratchOf(distinct).fill(0, 0, distinct);
   let best = ids[0];
   for (const id of ids) if (++counts[id] > counts[best]) best = id;
   if (counts[best] < 2) return { positions: [], share: 0 };
@@ -92,20 +110,39 @@ function mostFrequent(ids: Int32Array, distinct: number, ws: Token[], n: number,
 /** How many of the latest earlier sentences holding a shingle are compared through it. */
 const MAX_CANDIDATES = 50;
 
+/** Postings of the shingle index as linked lists in flat arrays, reused across documents. */
+const postings = { head: new Int32Array(0), next: new Int32Array(0), sentence: new Int32Array(0), lastAdded: new Int32Array(0) };
+
+function resetPostings(ids: number, entries: number): void {
+  if (postings.head.length < ids) {
+    postings.head = new Int32Array(ids * 2);
+    postings.lastAdded = new Int32Array(ids * 2);
+  }
+  if (postings.next.length < entries) {
+    postings.next = new Int32Array(entries * 2);
+    postings.sentence = new Int32Array(entries * 2);
+  }
+  postings.head.fill(-1, 0, ids);
+  postings.lastAdded.fill(0, 0, ids);
+}
+
 /**
  * Near-duplicate sentences: Jaccard similarity of word 3-gram shingles (a sentence under 3 words
  * is one shingle of its own), each sentence compared only with the latest earlier sentences
  * that share a shingle with it. Shingle ids are dense (from `ngramIds`), so the index, the
- * per-sentence sets and the shared counts are arrays rather than maps. Reports each repeat and
- * returns how many sentences repeat an earlier one.
+ * per-sentence sets and the shared counts are flat arrays rather than maps. Reports each repeat
+ * and returns how many sentences repeat an earlier one.
  */
 function nearDuplicates(doc: Doc, shingles: Int32Array, shingleIds: number, threshold: number, report: Report): number {
   const ws = doc.wordTokens;
-  const postings: number[][] = [];
+  const sentenceCount = doc.sentences.length;
+  // every shingle of a long sentence, plus one id per short sentence
+  resetPostings(shingleIds + sentenceCount, shingles.length + sentenceCount);
+  const { head, next, sentence: postedSentence, lastAdded } = postings;
+  let posted = 0;
   const shortSentences = new Map<string, number>();
-  const sizes: number[] = [];
-  const lastAdded: number[] = []; // by shingle id: 1 + the sentence that last added it
-  const shared = new Int32Array(doc.sentences.length);
+  const sizes = new Int32Array(sentenceCount);
+  const shared = new Int32Array(sentenceCount);
   const touched: number[] = [];
   const own: number[] = [];
   let duplicates = 0;
@@ -128,20 +165,20 @@ function nearDuplicates(doc: Doc, shingles: Int32Array, shingleIds: number, thre
       if (id === undefined) shortSentences.set(key, (id = shingleIds + shortSentences.size));
       own.push(id);
     }
-    sizes.push(own.length);
+    sizes[s.index] = own.length;
     if (!own.length) continue;
     for (const id of own) {
-      const list = postings[id];
-      if (!list) continue;
-      for (let k = Math.max(0, list.length - MAX_CANDIDATES); k < list.length; k++) {
-        if (shared[list[k]]++ === 0) touched.push(list[k]);
+      // latest first, at most MAX_CANDIDATES of them
+      for (let p = head[id], k = 0; p >= 0 && k < MAX_CANDIDATES; p = next[p], k++) {
+        const j = postedSentence[p];
+        if (shared[j]++ === 0) touched.push(j);
       }
     }
     let best = -1;
     let bestSim = 0;
     for (const j of touched) {
       const sim = shared[j] / (own.length + sizes[j] - shared[j]);
-      if (sim > bestSim) [best, bestSim] = [j, sim];
+      if (sim > bestSim || (sim === bestSim && j < best)) [best, bestSim] = [j, sim];
       shared[j] = 0;
     }
     touched.length = 0;
@@ -149,7 +186,11 @@ function nearDuplicates(doc: Doc, shingles: Int32Array, shingleIds: number, thre
       duplicates++;
       report('repeated-sentence', s, { similarity: bestSim.toFixed(2) }, doc.sentences[best]);
     }
-    for (const id of own) (postings[id] ??= []).push(s.index);
+    for (const id of own) {
+      postedSentence[posted] = s.index;
+      next[posted] = head[id];
+      head[id] = posted++;
+    }
   }
   return duplicates;
 }

@@ -1,5 +1,7 @@
 import { syllablesOf } from './syllables.ts';
-import { winkReader } from './wink-reader.ts';
+import { splitSentences } from './sentences.ts';
+import { tokenize } from './tokenize.ts';
+import { isSpaceCode, winkNegationFlags } from './wink-negation.ts';
 import { wordFacts, type WordFacts } from './word-facts.ts';
 import { findNegation, type NegationCue } from './negation.ts';
 import { findQuantities, type Quantity } from './quantities.ts';
@@ -47,8 +49,6 @@ export interface Sentence {
  */
 export interface MatchWord {
   norm: string;
-  /** The first two characters of `norm`, for prefix phrases. */
-  head: string;
   start: number;
   end: number;
   firstToken: number;
@@ -75,24 +75,6 @@ export interface Doc {
   context: AnalysisContext;
 }
 
-const KIND: Record<string, TokenKind> = {
-  word: 'word',
-  number: 'number',
-  ordinal: 'number',
-  punctuation: 'punctuation',
-  emoji: 'emoji',
-  emoticon: 'emoji',
-  tabCRLF: 'space',
-  symbol: 'symbol',
-  currency: 'symbol',
-  url: 'url',
-  email: 'email',
-  hashtag: 'word',
-  mention: 'word',
-};
-
-const CLITIC = /^(n't|'s|'re|'ll|'ve|'d|'m|’s|’re|’ll|’ve|’d|’m|n’t)$/i;
-
 /** True for tokens that count as words in readability and content measures. */
 export function isWord(token: Token): boolean {
   return (token.kind === 'word' || token.kind === 'number') && !token.clitic;
@@ -109,51 +91,11 @@ export function isWord(token: Token): boolean {
  * doc.tokens[1].negated // true
  */
 export function analyze(text: string, context: AnalysisContext = {}): Doc {
-  const { read, runs } = shieldLongRuns(text);
-  const wdoc = winkReader().readDoc(read);
-  const its = winkReader().its;
-  const values = wdoc.tokens().out(its.value) as string[];
-  const spaces = wdoc.tokens().out(its.precedingSpaces) as string[];
-  const types = wdoc.tokens().out(its.type) as string[];
-  const winkNegated = wdoc.tokens().out(its.negationFlag) as unknown as boolean[];
-  const spans = wdoc.sentences().out(its.span) as unknown as [number, number][];
-
-  const tokens: Token[] = new Array(values.length);
-  let offset = 0;
-  let shift = 0; // original length minus read length of the long runs passed so far
-  let nextRun = 0;
-  for (let i = 0; i < values.length; i++) {
-    const value = values[i];
-    offset += spaces[i].length;
-    if (!read.startsWith(value, offset)) {
-      // wink-nlp keeps values verbatim; should one ever differ, resynchronise on the text.
-      const found = read.indexOf(value, offset);
-      if (found >= 0) offset = found;
-    }
-    let start = offset + shift;
-    let end = Math.min(text.length, start + value.length);
-    let kind = KIND[types[i]] ?? 'other';
-    const run = runs[nextRun];
-    if (run && offset === run.at) {
-      start = run.start;
-      end = run.end;
-      shift += run.end - run.start - 1;
-      kind = /^[\p{L}\p{M}'’-]+$/u.test(text.slice(start, Math.min(end, start + 1000))) ? 'word' : 'other';
-      nextRun++;
-    }
-    offset += value.length;
-    const tokenText = end - start === value.length ? value : text.slice(start, end);
-    const lower = tokenText.toLowerCase();
-    const clitic = kind === 'word' && (lower.includes("'") || lower.includes('’')) && CLITIC.test(lower);
-    tokens[i] = { start, end, text: tokenText, lower, kind, sentence: 0, negated: false, cue: false, clitic, stop: false, stem: '', syllables: 0, facts: null };
-  }
+  const tokens = tokenize(text);
   const wordTokens: Token[] = [];
   for (let i = 0; i < tokens.length; i++) {
     const t = tokens[i];
-    if (t.clitic) {
-      t.stop = true;
-      continue;
-    }
+    if (t.clitic) continue;
     if (t.kind === 'number') {
       t.syllables = 1;
       t.facts = wordFacts(t.lower);
@@ -176,16 +118,19 @@ export function analyze(text: string, context: AnalysisContext = {}): Doc {
   }
 
   const sentences: Sentence[] = [];
-  for (const [spanFirst, spanLast] of spans) {
-    if (spanFirst > spanLast || spanFirst >= tokens.length) continue;
+  for (const [spanFirst, spanEnd] of splitSentences(text, tokens)) {
     // a sentence's character range leaves out line breaks and tabs at its edges
     let first = spanFirst;
-    let last = Math.min(spanLast, tokens.length - 1);
+    let last = spanEnd - 1;
     while (first < last && tokens[first].kind === 'space') first++;
     while (last > first && tokens[last].kind === 'space') last--;
+    if (tokens[first].kind === 'space') {
+      for (let i = spanFirst; i < spanEnd; i++) tokens[i].sentence = Math.max(0, sentences.length - 1);
+      continue;
+    }
     const index = sentences.length;
     let words = 0;
-    for (let i = spanFirst; i <= Math.min(spanLast, tokens.length - 1); i++) {
+    for (let i = spanFirst; i < spanEnd; i++) {
       tokens[i].sentence = index;
       if (isWord(tokens[i])) words++;
     }
@@ -193,7 +138,7 @@ export function analyze(text: string, context: AnalysisContext = {}): Doc {
   }
 
   const words = matchWords(text, tokens);
-  const cues = findNegation(tokens, words, sentences, winkNegated);
+  const cues = findNegation(tokens, words, sentences, (open) => winkNegationFlags(text, tokens, open));
   const doc: Doc = { text, tokens, wordTokens, sentences, words, cues, quantities: [], context };
   doc.quantities = findQuantities(doc);
   return doc;
@@ -234,7 +179,7 @@ function matchWords(text: string, tokens: Token[]): MatchWord[] {
     if (start >= end) return;
     const lower = first === last && start === from && end === to ? tokens[first].lower : text.slice(start, end).toLowerCase();
     const norm = lower.includes('’') ? lower.replace(/’/g, "'") : lower;
-    words.push({ norm, head: norm.slice(0, 2), start, end, firstToken: first, lastToken: last, sentence: tokens[first].sentence });
+    words.push({ norm, start, end, firstToken: first, lastToken: last, sentence: tokens[first].sentence });
   };
   for (let i = 0; i < tokens.length; i++) {
     const t = tokens[i];
@@ -247,40 +192,6 @@ function matchWords(text: string, tokens: Token[]): MatchWord[] {
   }
   close(tokens.length - 1);
   return words;
-}
-
-/** Runs of non-space characters at least this long are read as one token (see shieldLongRuns). */
-const LONG_RUN = 200;
-
-/**
- * wink-nlp's tokenizer takes time quadratic in a token's length, so a 1 MB "word" would take
- * minutes. Each run of LONG_RUN or more non-space characters is replaced by one letter before
- * wink reads the text; `runs` records where each was (in the read text) and what it spanned.
- */
-function shieldLongRuns(text: string): { read: string; runs: { at: number; start: number; end: number }[] } {
-  if (text.length < LONG_RUN) return { read: text, runs: [] };
-  const runs: { at: number; start: number; end: number }[] = [];
-  let read = '';
-  let last = 0;
-  let runFrom = 0;
-  // one pass over the character codes: a run is broken by any white space character
-  for (let i = 0; i <= text.length; i++) {
-    if (i < text.length && !isSpaceCode(text.charCodeAt(i))) continue;
-    if (i - runFrom >= LONG_RUN) {
-      read += text.slice(last, runFrom);
-      runs.push({ at: read.length, start: runFrom, end: i });
-      read += 'x';
-      last = i;
-    }
-    runFrom = i + 1;
-  }
-  return runs.length ? { read: read + text.slice(last), runs } : { read: text, runs };
-}
-
-/** The characters JavaScript's `\s` matches. */
-function isSpaceCode(c: number): boolean {
-  if (c < 128) return c === 32 || (c >= 9 && c <= 13);
-  return c === 0xa0 || c === 0x1680 || (c >= 0x2000 && c <= 0x200a) || c === 0x2028 || c === 0x2029 || c === 0x202f || c === 0x205f || c === 0x3000 || c === 0xfeff;
 }
 
 /** Analyses a prompt and its responses once each, giving every response the others as siblings. */

@@ -28,14 +28,19 @@ function tokensOf(words: MatchWord[], a: number, b: number): [number, number] {
   return [words[a].firstToken, words[b].lastToken];
 }
 
+/** wink-nlp's negation flags (one per token) for the given sentences; tokens elsewhere are false. */
+export type WinkFlagReader = (sentences: Sentence[]) => boolean[];
+
 /**
  * Marks negation cues and their scope on `tokens` (sets `cue` and `negated`) and returns the
  * cues. NegEx-style lists decide what is a cue; pseudo-negations ("not only", "can't stress")
  * are no cues; a scope ends at a termination term, punctuation, the sentence's end or after
  * eight words. wink-nlp's own negation flags extend a scope only where no termination term or
- * pseudo-negation intervenes, so both readings agree on what counts.
+ * pseudo-negation intervenes, so both readings agree on what counts. wink-nlp is asked only
+ * about the sentences where its flags can change the outcome: those with a token after a cue,
+ * before anything that blocks, that the NegEx scope left out.
  */
-export function findNegation(tokens: Token[], words: MatchWord[], sentences: Sentence[], winkNegated: boolean[]): NegationCue[] {
+export function findNegation(tokens: Token[], words: MatchWord[], sentences: Sentence[], readWinkFlags: WinkFlagReader): NegationCue[] {
   const cues: NegationCue[] = [];
   const pseudo = new Set<number>();
   for (const [a, b] of PSEUDO.matchWords(words)) {
@@ -79,16 +84,32 @@ export function findNegation(tokens: Token[], words: MatchWord[], sentences: Sen
     cues.push({ start: tokens[first].start, end: tokens[last].end, text: textOf(tokens, first, last), direction: 'post', scopeStart: tokens[scopeFirst].start, scopeEnd: tokens[Math.max(scopeFirst, first - 1)].end });
   }
   // wink-nlp's flags: kept unless a pseudo-negation or termination term came first.
-  for (const sentence of sentences) {
-    let blocked = true;
-    for (let i = sentence.firstToken; i < sentence.endToken; i++) {
-      const t = tokens[i];
-      if (t.cue) blocked = false;
-      else if (pseudo.has(i) || endsScope(t)) blocked = true;
-      else if (winkNegated[i] && !blocked) t.negated = true;
+  const open = sentences.filter((sentence) => scopeLeftOpen(tokens, sentence, pseudo));
+  if (open.length) {
+    const winkNegated = readWinkFlags(open);
+    for (const sentence of open) {
+      let blocked = true;
+      for (let i = sentence.firstToken; i < sentence.endToken; i++) {
+        const t = tokens[i];
+        if (t.cue) blocked = false;
+        else if (pseudo.has(i) || endsScope(t)) blocked = true;
+        else if (winkNegated[i] && !blocked) t.negated = true;
+      }
     }
   }
   return cues.sort((x, y) => x.start - y.start);
+}
+
+/** Is there a token after a cue, with nothing blocking between, that no NegEx scope covers? */
+function scopeLeftOpen(tokens: Token[], sentence: Sentence, pseudo: Set<number>): boolean {
+  let blocked = true;
+  for (let i = sentence.firstToken; i < sentence.endToken; i++) {
+    const t = tokens[i];
+    if (t.cue) blocked = false;
+    else if (pseudo.has(i) || endsScope(t)) blocked = true;
+    else if (!blocked && !t.negated) return true;
+  }
+  return false;
 }
 
 function textOf(tokens: Token[], first: number, last: number): string {

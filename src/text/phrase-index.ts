@@ -49,17 +49,22 @@ function matchAt(words: readonly MatchWord[], i: number, entry: Entry): number {
  */
 class PhraseBank {
   private readonly byFirst = new Map<string, Entry[]>();
-  private readonly prefixFirst = new Map<string, Entry[]>();
+  /** Single-word prefix phrases by their first two characters' codes (see `headKey`). */
+  private readonly prefixFirst = new Map<number, Entry[]>();
   lists = 0;
 
   add(entries: Entry[]): void {
     for (const entry of entries) {
-      const single = entry.prefixLast && entry.words.length === 1;
-      const map = single ? this.prefixFirst : this.byFirst;
-      const key = single ? entry.words[0].slice(0, 2) : entry.words[0];
-      const list = map.get(key);
+      if (entry.prefixLast && entry.words.length === 1) {
+        const key = headKey(entry.words[0]);
+        const list = this.prefixFirst.get(key);
+        if (list) list.push(entry);
+        else this.prefixFirst.set(key, [entry]);
+        continue;
+      }
+      const list = this.byFirst.get(entry.words[0]);
       if (list) list.push(entry);
-      else map.set(key, [entry]);
+      else this.byFirst.set(entry.words[0], [entry]);
     }
     this.lists++;
   }
@@ -80,7 +85,7 @@ class PhraseBank {
       const w = words[i];
       const entries = this.byFirst.get(w.norm);
       if (entries) for (const entry of entries) if (i >= nextFree[entry.list]) consider(i, entry, matchAt(words, i, entry));
-      const prefixes = this.prefixFirst.size ? this.prefixFirst.get(w.head) : undefined;
+      const prefixes = this.prefixFirst.size ? this.prefixFirst.get(headKey(w.norm)) : undefined;
       if (prefixes) for (const entry of prefixes) if (w.norm.startsWith(entry.words[0])) consider(i, entry, i);
       if (!touched.length) continue;
       for (const list of touched) {
@@ -92,6 +97,11 @@ class PhraseBank {
     }
     return out;
   }
+}
+
+/** The first two characters of a word as one number (a word of one character: that character). */
+function headKey(word: string): number {
+  return word.length > 1 ? word.charCodeAt(0) * 65536 + word.charCodeAt(1) : word.charCodeAt(0);
 }
 
 /** Lists a bank takes; lists beyond it (rubrics can make many) get a bank of their own. */

@@ -13,6 +13,18 @@ export interface WordFacts {
   letters: number;
   /** Letters and digits (ARI). */
   characters: number;
+  /** Reaches 3 syllables only through -es, -ed or -ing (not a Gunning complex word). */
+  complexByInflectionOnly: boolean;
+}
+
+/**
+ * Does a word of `syllables` syllables reach 3 only through -es, -ed or -ing? Gunning did not
+ * count such words as complex.
+ */
+export function complexByInflectionOnly(lower: string, syllables: number): boolean {
+  if (syllables < 3) return false;
+  const suffix = /(es|ed|ing)$/.exec(lower);
+  return suffix !== null && syllablesOf(lower.slice(0, -suffix[1].length)) < 3 && syllables - 1 < 3;
 }
 
 const FAMILIAR = new Set(familiarList.map((w) => w.toLowerCase()));
@@ -58,12 +70,14 @@ export function wordFacts(surfaceLower: string, stemBase = surfaceLower): WordFa
   const key = stemBase === surfaceLower ? surfaceLower : `${surfaceLower}\u0000${stemBase}`;
   let facts = cache.get(key);
   if (facts) return facts;
+  const syllables = syllablesOf(surfaceLower);
   facts = {
     stem: stemOf(stemBase),
-    syllables: syllablesOf(surfaceLower),
+    syllables,
     stop: STOP_WORDS.has(stemBase),
     familiar: isFamiliar(surfaceLower.replace(/’/g, "'")),
     ...countLetters(surfaceLower),
+    complexByInflectionOnly: complexByInflectionOnly(stemBase, syllables),
   };
   if (cache.size >= CACHE_LIMIT) cache.clear();
   cache.set(key, facts);

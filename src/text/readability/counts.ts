@@ -1,6 +1,6 @@
 import type { Doc, Token } from '../analyze.ts';
 import { isWord } from '../analyze.ts';
-import { syllablesOf } from '../syllables.ts';
+import { complexByInflectionOnly } from '../word-facts.ts';
 import type { ReadabilityCounts } from './formulas.ts';
 
 /**
@@ -11,9 +11,7 @@ function isComplex(token: Token, sentenceStart: boolean): boolean {
   if (token.syllables < 3 || token.kind !== 'word') return false;
   if (token.text.includes('-')) return false;
   if (!sentenceStart && /^\p{Lu}/u.test(token.text)) return false;
-  const suffix = token.lower.match(/(es|ed|ing)$/);
-  if (suffix && syllablesOf(token.lower.slice(0, -suffix[1].length)) < 3 && token.syllables - 1 < 3) return false;
-  return true;
+  return !(token.facts ? token.facts.complexByInflectionOnly : complexByInflectionOnly(token.lower, token.syllables));
 }
 
 /** Sentences that hold at least one word. */
