@@ -24,39 +24,49 @@ const CONDITIONAL = new Set(['if', 'unless', 'when', 'whenever', 'otherwise', 'e
 
 interface SentenceFacts {
   sentence: Sentence;
-  stems: Set<string>;
-  negatedStems: Set<string>;
+  /** Its distinct content stems, as ids local to the document, in order of first use. */
+  stems: number[];
+  /** Ids of stems negated somewhere in it (usually none). */
+  negatedStems: number[];
   /** Its words that have an antonym in ANTONYM_PAIRS. */
   antonymWords: Set<string>;
   conditional: boolean;
   quantities: Quantity[];
 }
 
-/** Shared by every sentence with no negated stem or no antonym: most sentences. */
-const NONE: Set<string> = new Set();
+/** Shared by every sentence with no antonym: most sentences. */
+const NO_WORDS: Set<string> = new Set();
 
-function facts(doc: Doc, s: Sentence, quantities: Quantity[]): SentenceFacts {
-  const stems = new Set<string>();
-  let negatedStems = NONE;
-  let antonymWords = NONE;
-  let conditional = false;
-  for (let i = s.firstToken; i < s.endToken; i++) {
-    const t = doc.tokens[i];
-    if (t.kind !== 'word' || t.clitic) continue;
-    if (CONDITIONAL.has(t.lower)) conditional = true;
-    if (ANTONYMS.has(t.lower)) {
-      if (antonymWords === NONE) antonymWords = new Set();
-      antonymWords.add(t.lower);
-      continue;
+/** Reads each sentence's facts, giving the document's content stems small ids. */
+function allFacts(doc: Doc, quantities: Map<number, Quantity[]>): { all: SentenceFacts[]; stemCount: number } {
+  const ids = new Map<string, number>();
+  const seenIn = new Int32Array(doc.wordTokens.length + 1); // by stem id: 1 + the sentence that last used it
+  const all = doc.sentences.map((s) => {
+    const stems: number[] = [];
+    const negatedStems: number[] = [];
+    let antonymWords = NO_WORDS;
+    let conditional = false;
+    for (let i = s.firstToken; i < s.endToken; i++) {
+      const t = doc.tokens[i];
+      if (t.kind !== 'word' || t.clitic) continue;
+      if (CONDITIONAL.has(t.lower)) conditional = true;
+      if (ANTONYMS.has(t.lower)) {
+        if (antonymWords === NO_WORDS) antonymWords = new Set();
+        antonymWords.add(t.lower);
+        continue;
+      }
+      if (t.stop || t.cue || t.lower.length < 2) continue;
+      let id = ids.get(t.stem);
+      if (id === undefined) ids.set(t.stem, (id = ids.size));
+      if (seenIn[id] !== s.index + 1) {
+        seenIn[id] = s.index + 1;
+        stems.push(id);
+      }
+      if (t.negated) negatedStems.push(id);
     }
-    if (t.stop || t.cue || t.lower.length < 2) continue;
-    stems.add(t.stem);
-    if (t.negated) {
-      if (negatedStems === NONE) negatedStems = new Set();
-      negatedStems.add(t.stem);
-    }
-  }
-  return { sentence: s, stems, negatedStems, antonymWords, conditional, quantities };
+    return { sentence: s, stems, negatedStems, antonymWords, conditional, quantities: quantities.get(s.index) ?? [] };
+  });
+  return { all, stemCount: ids.size };
 }
 
 function antonymSwap(a: SentenceFacts, b: SentenceFacts): string | null {
@@ -66,20 +76,18 @@ function antonymSwap(a: SentenceFacts, b: SentenceFacts): string | null {
   return null;
 }
 
-/** Is a stem the two sentences share (through the index) negated in one only? */
-function polarityFlip(a: SentenceFacts, b: SentenceFacts, index: Map<string, number[]>): boolean {
-  if (a.negatedStems === NONE && b.negatedStems === NONE) return false;
-  for (const stem of b.stems) {
-    if (!a.stems.has(stem) || !sharedThrough(index, stem)) continue;
-    if (a.negatedStems.has(stem) !== b.negatedStems.has(stem)) return true;
+/**
+ * Is a stem the two sentences share through the index (one in no more than MAX_POSTING
+ * sentences) negated in one only? `inA` marks the stems of `a` with `stamp`.
+ */
+function polarityFlip(a: SentenceFacts, b: SentenceFacts, postings: number[][], inA: Int32Array, stamp: number): boolean {
+  if (!a.negatedStems.length && !b.negatedStems.length) return false;
+  for (const id of a.stems) inA[id] = stamp;
+  for (const id of b.stems) {
+    if (inA[id] !== stamp || postings[id].length > MAX_POSTING) continue;
+    if (a.negatedStems.includes(id) !== b.negatedStems.includes(id)) return true;
   }
   return false;
-}
-
-/** Does a stem link sentences in the index (it is there, and in no more than MAX_POSTING of them)? */
-function sharedThrough(index: Map<string, number[]>, stem: string): boolean {
-  const posting = index.get(stem);
-  return posting !== undefined && posting.length <= MAX_POSTING;
 }
 
 function numberClash(a: SentenceFacts, b: SentenceFacts): [Quantity, Quantity] | null {
@@ -124,15 +132,17 @@ export const contradiction = defineCheck<{ minShared: number }>({
       if (list) list.push(q);
       else bySentence.set(q.sentence, [q]);
     }
-    const all = doc.sentences.map((s) => facts(doc, s, bySentence.get(s.index) ?? []));
-    const index = new Map<string, number[]>();
+    const { all, stemCount } = allFacts(doc, bySentence);
+    const postings: number[][] = new Array(stemCount); // by stem id: the sentences holding it
+    const inA = new Int32Array(stemCount);
+    let stamp = 0;
     const sharedCount = new Int32Array(all.length);
     const touched: number[] = [];
     let pairsCompared = 0;
     let found = 0;
     for (const b of all) {
-      for (const stem of b.stems) {
-        const posting = index.get(stem);
+      for (const id of b.stems) {
+        const posting = postings[id];
         if (!posting || posting.length > MAX_POSTING) continue;
         for (const j of posting) if (sharedCount[j]++ === 0) touched.push(j);
       }
@@ -151,7 +161,7 @@ export const contradiction = defineCheck<{ minShared: number }>({
           found++;
           break;
         }
-        const flip = polarityFlip(a, b, index);
+        const flip = polarityFlip(a, b, postings, inA, ++stamp);
         if (flip !== Boolean(swap)) {
           if (flip) report('negation', b.sentence, undefined, a.sentence);
           else report('antonym', b.sentence, { pair: swap! }, a.sentence);
@@ -161,10 +171,10 @@ export const contradiction = defineCheck<{ minShared: number }>({
       }
       for (const j of touched) sharedCount[j] = 0;
       touched.length = 0;
-      for (const stem of b.stems) {
-        const posting = index.get(stem);
+      for (const id of b.stems) {
+        const posting = postings[id];
         if (posting) posting.push(b.sentence.index);
-        else index.set(stem, [b.sentence.index]);
+        else postings[id] = [b.sentence.index];
       }
     }
     return { metrics: { contradictions: found, sentence_pairs_compared: pairsCompared }, value: 1 - 0.5 * found };

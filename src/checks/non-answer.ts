@@ -1,45 +1,62 @@
 import { contentStems, isWord, type Doc } from '../text/analyze.ts';
 import { defineCheck, type Evaluation } from './define-check.ts';
 
+/** A document's TF-IDF weights over the model's vocabulary, with their Euclidean norm. */
+export interface TfIdfVector {
+  weights: Float64Array;
+  norm: number;
+}
+
 /**
  * TF-IDF weighting with IDF from the documents given (smoothed: ln((1 + n) / (1 + df)) + 1),
- * and the cosine similarity of two documents' vectors.
+ * and the cosine similarity of two documents' vectors. Stems get small ids over the corpus's
+ * vocabulary, so vectors are dense arrays rather than maps.
  */
 export class TfIdf {
-  private readonly df = new Map<string, number>();
-  private readonly n: number;
+  private readonly ids = new Map<string, number>();
+  private readonly idf: Float64Array;
 
   constructor(corpus: string[][]) {
-    const seenIn = new Map<string, number>();
+    const df: number[] = [];
+    const lastDoc: number[] = [];
     corpus.forEach((doc, d) => {
       for (const s of doc) {
-        if (seenIn.get(s) === d) continue;
-        seenIn.set(s, d);
-        this.df.set(s, (this.df.get(s) ?? 0) + 1);
+        let id = this.ids.get(s);
+        if (id === undefined) {
+          id = df.length;
+          this.ids.set(s, id);
+          df.push(0);
+          lastDoc.push(-1);
+        }
+        if (lastDoc[id] !== d) {
+          lastDoc[id] = d;
+          df[id]++;
+        }
       }
     });
-    this.n = corpus.length;
+    const n = corpus.length;
+    this.idf = new Float64Array(df.length);
+    for (let id = 0; id < df.length; id++) this.idf[id] = Math.log((1 + n) / (1 + df[id])) + 1;
   }
 
-  /** The weighted vector of a stem list, with its Euclidean norm. */
-  vector(stems: string[]): { weights: Map<string, number>; norm: number } {
-    const weights = new Map<string, number>();
-    for (const s of stems) weights.set(s, (weights.get(s) ?? 0) + 1);
-    let squares = 0;
-    for (const [s, count] of weights) {
-      const w = count * (Math.log((1 + this.n) / (1 + (this.df.get(s) ?? 0))) + 1);
-      weights.set(s, w);
-      squares += w * w;
+  /** The weighted vector of a stem list (stems outside the corpus are left out). */
+  vector(stems: string[]): TfIdfVector {
+    const weights = new Float64Array(this.idf.length);
+    for (const s of stems) {
+      const id = this.ids.get(s);
+      if (id !== undefined) weights[id] += this.idf[id];
     }
+    let squares = 0;
+    for (const w of weights) squares += w * w;
     return { weights, norm: Math.sqrt(squares) };
   }
 
-  static cosine(a: { weights: Map<string, number>; norm: number }, b: { weights: Map<string, number>; norm: number }): number {
-    const [small, large] = a.weights.size <= b.weights.size ? [a, b] : [b, a];
-    let dot = 0;
-    for (const [s, w] of small.weights) dot += w * (large.weights.get(s) ?? 0);
+  static cosine(a: TfIdfVector, b: TfIdfVector): number {
     const d = a.norm * b.norm;
-    return d ? dot / d : 0;
+    if (!d) return 0;
+    let dot = 0;
+    for (let i = 0; i < a.weights.length; i++) dot += a.weights[i] * b.weights[i];
+    return dot / d;
   }
 }
 

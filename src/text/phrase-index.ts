@@ -51,12 +51,15 @@ class PhraseBank {
   private readonly byFirst = new Map<string, Entry[]>();
   /** Single-word prefix phrases by their first two characters' codes (see `headKey`). */
   private readonly prefixFirst = new Map<number, Entry[]>();
+  /** 1 for each first character some prefix phrase starts with: most words need no lookup. */
+  private readonly prefixInitials = new Uint8Array(65536);
   lists = 0;
 
   add(entries: Entry[]): void {
     for (const entry of entries) {
       if (entry.prefixLast && entry.words.length === 1) {
         const key = headKey(entry.words[0]);
+        this.prefixInitials[entry.words[0].charCodeAt(0)] = 1;
         const list = this.prefixFirst.get(key);
         if (list) list.push(entry);
         else this.prefixFirst.set(key, [entry]);
@@ -85,7 +88,7 @@ class PhraseBank {
       const w = words[i];
       const entries = this.byFirst.get(w.norm);
       if (entries) for (const entry of entries) if (i >= nextFree[entry.list]) consider(i, entry, matchAt(words, i, entry));
-      const prefixes = this.prefixFirst.size ? this.prefixFirst.get(headKey(w.norm)) : undefined;
+      const prefixes = this.prefixInitials[w.norm.charCodeAt(0)] === 1 ? this.prefixFirst.get(headKey(w.norm)) : undefined;
       if (prefixes) for (const entry of prefixes) if (w.norm.startsWith(entry.words[0])) consider(i, entry, i);
       if (!touched.length) continue;
       for (const list of touched) {

@@ -84,7 +84,8 @@ export function tokenize(text: string): Token[] {
   const push = (start: number, end: number, kind: TokenKind, clitic = false) => {
     const value = text.slice(start, end);
     // the analysis fills in sentence, negation, stem, syllables and facts
-    out.push({ start, end, text: value, lower: value.toLowerCase(), kind, sentence: 0, negated: false, cue: false, clitic, stop: clitic, stem: '', syllables: 0, facts: null });
+    const lower = kind === 'word' || kind === 'other' || kind === 'url' || kind === 'email' ? value.toLowerCase() : value;
+    out.push({ start, end, text: value, lower, kind, sentence: 0, negated: false, cue: false, clitic, stop: clitic, stem: '', syllables: 0, facts: null });
   };
   while (i < n) {
     const c = text.charCodeAt(i);

@@ -1,5 +1,26 @@
-import { nonAnswer } from '../../src/checks/non-answer.ts';
+import { describe, expect, it } from 'vitest';
+import { nonAnswer, tfidfCosine } from '../../src/checks/non-answer.ts';
 import { checkTable } from './check-table.ts';
+
+/**
+ * TF-IDF with smoothed IDF, idf(t) = ln((1 + n) / (1 + df(t))) + 1, raw term counts and cosine
+ * of the two vectors: the definition in scikit-learn's TfidfTransformer documentation
+ * (smooth_idf=True; recalled from memory). Values worked by hand from that formula.
+ */
+describe('TF-IDF cosine', () => {
+  const CASES: { a: string[]; b: string[]; corpus: string[][]; want: number }[] = [
+    // idf(a) = 1, idf(b) = idf(c) = ln(3/2) + 1 = 1.405465; cos = 1 / (1 + 1.405465²) = 0.336097
+    { a: ['a', 'b'], b: ['a', 'c'], corpus: [['a', 'b'], ['a', 'c']], want: 0.336097 },
+    { a: ['a', 'b'], b: ['a', 'b'], corpus: [['a', 'b'], ['a', 'b']], want: 1 },
+    { a: ['a'], b: ['c'], corpus: [['a'], ['c']], want: 0 },
+    // tf 2 for "a": va = (2, 1.405465), vb = (1, 0); cos = 2 / sqrt(4 + 1.975332) = 0.818180
+    { a: ['a', 'a', 'b'], b: ['a'], corpus: [['a', 'a', 'b'], ['a']], want: 0.818180 },
+    { a: [], b: ['a'], corpus: [[], ['a']], want: 0 },
+  ];
+  it.each(CASES)('$a · $b', ({ a, b, corpus, want }) => {
+    expect(tfidfCosine(a, b, corpus)).toBeCloseTo(want, 5);
+  });
+});
 
 checkTable(nonAnswer, {
   flagged: [
