@@ -14,13 +14,6 @@ function timeIt(run: () => void): number {
   return performance.now() - t0;
 }
 
-/** The best of `rounds` timings: the least disturbed by other work on a shared machine. */
-function best(rounds: number, run: () => void): number {
-  let min = Infinity;
-  for (let r = 0; r < rounds; r++) min = Math.min(min, timeIt(run));
-  return min;
-}
-
 function analyseAndCheck(texts: string[]): void {
   const prompt = analyze(PROMPT);
   for (const text of texts) runAllChecks(analyze(text, { prompt }));
@@ -71,10 +64,19 @@ export async function textAnalysisBench(options: { quick: boolean }): Promise<Be
   const short = Array.from({ length: 200 }, () => syntheticResponse(random, 1200));
   const long = Array.from({ length: 20 }, () => syntheticResponse(random, 12_000));
   const huge = Array.from({ length: 5 }, () => syntheticResponse(random, 50_000));
-  const perKb = (texts: string[]) => best(3, () => analyseAndCheck(texts)) / (texts.reduce((n, t) => n + t.length, 0) / 1024);
-  const shortCost = perKb(short);
-  const longCost = perKb(long);
-  const hugeCost = perKb(huge);
+  // rounds time the three sizes back to back; the growth figures are medians of the rounds' ratios
+  const kbOf = (texts: string[]) => texts.reduce((n, t) => n + t.length, 0) / 1024;
+  const sizes: { short: number; long: number; huge: number }[] = [];
+  for (let round = 0; round < 5; round++) {
+    sizes.push({
+      short: timeIt(() => analyseAndCheck(short)) / kbOf(short),
+      long: timeIt(() => analyseAndCheck(long)) / kbOf(long),
+      huge: timeIt(() => analyseAndCheck(huge)) / kbOf(huge),
+    });
+  }
+  const shortCost = median(sizes.map((g) => g.short));
+  const longCost = shortCost * median(sizes.map((g) => g.long / g.short));
+  const hugeCost = shortCost * median(sizes.map((g) => g.huge / g.short));
   const sentences = analyze(huge[0]).sentences.length;
   rows.push({ area: 'analysis', name: 'cost per KB, 1.2 KB responses', value: shortCost, unit: 'ms/KB' });
   rows.push({ area: 'analysis', name: '10× longer (12 KB): cost of 10× the text', value: (longCost / shortCost) * 10, unit: '× the cost', target: '≤ 15×', pass: (longCost / shortCost) * 10 <= 15 });
