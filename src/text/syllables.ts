@@ -13,7 +13,7 @@ const VOWEL_GROUPS = /[aeiouy]+/g;
 
 /**
  * Syllables in a word: the CMU Pronouncing Dictionary's first pronunciation when the word is
- * listed, otherwise the fallback model trained on CMU (see build-syllable-model.ts). Letters
+ * listed, for a hyphenated compound it lacks the sum of its parts, otherwise the fallback model trained on CMU (see build-syllable-model.ts). Letters
  * outside a–z are ignored for the fallback; a word with no letters has 0 syllables, any other
  * at least 1. `useDictionary: false` measures the fallback alone.
  *
@@ -25,7 +25,8 @@ export function syllablesOf(word: string, options: { useDictionary?: boolean } =
   if (options.useDictionary !== false) {
     const known = cmuSyllableTable().get(lower) ?? estimated.get(lower);
     if (known !== undefined) return known;
-    const guess = fallback(lower);
+    // a hyphenated compound CMU lacks: the sum of its parts ("rain-soaked" = rain + soaked)
+    const guess = lower.includes('-') && lower.length <= 64 ? compound(lower) : fallback(lower);
     if (lower.length <= 64) {
       if (estimated.size >= 100_000) estimated.clear();
       estimated.set(lower, guess);
@@ -33,6 +34,12 @@ export function syllablesOf(word: string, options: { useDictionary?: boolean } =
     return guess;
   }
   return fallback(lower);
+}
+
+function compound(lower: string): number {
+  let total = 0;
+  for (const part of lower.split('-')) if (part) total += syllablesOf(part);
+  return total > 0 ? total : fallback(lower);
 }
 
 /** Fallback estimates already made, for words CMU lacks. */

@@ -29,6 +29,9 @@ describe('syllables against the CMU Pronouncing Dictionary (npm cmu-pronouncing-
     ['poem', 2, 'CMU: P OW1 AH0 M'],
     ['everything', 3, 'CMU: EH1 V R IY0 TH IH2 NG'],
     ["don't", 1, 'CMU: D OW1 N T'],
+    ['well-known', 2, 'CMU: W EH1 L N OW1 N'],
+    ['rain-soaked', 2, 'not in CMU: rain (R EY1 N) + soaked (S OW1 K T)'],
+    ['trail-maintenance', 4, 'not in CMU: trail (T R EY1 L) + maintenance (M EY1 N T AH0 N AH0 N S)'],
     ['', 0, 'no letters'],
     ['42', 0, 'no letters'],
   ];
