@@ -1,7 +1,7 @@
 import { syllablesOf } from './syllables.ts';
 import { splitSentences } from './sentences.ts';
-import { tokenize } from './tokenize.ts';
-import { isSpaceCode, winkNegationFlags } from './wink-negation.ts';
+import { isSpaceCode, tokenize } from './tokenize.ts';
+import { winkNegationFlags } from './wink-negation.ts';
 import { wordFacts, type WordFacts } from './word-facts.ts';
 import { findNegation, type NegationCue } from './negation.ts';
 import { findQuantities, type Quantity } from './quantities.ts';

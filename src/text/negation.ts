@@ -84,30 +84,30 @@ export function findNegation(tokens: Token[], words: MatchWord[], sentences: Sen
     cues.push({ start: tokens[first].start, end: tokens[last].end, text: textOf(tokens, first, last), direction: 'post', scopeStart: tokens[scopeFirst].start, scopeEnd: tokens[Math.max(scopeFirst, first - 1)].end });
   }
   // wink-nlp's flags: kept unless a pseudo-negation or termination term came first.
-  const open = sentences.filter((sentence) => scopeLeftOpen(tokens, sentence, pseudo));
+  const open = sentences.filter((sentence) => reachAfterCues(tokens, sentence, pseudo, (t) => !t.negated));
   if (open.length) {
     const winkNegated = readWinkFlags(open);
     for (const sentence of open) {
-      let blocked = true;
-      for (let i = sentence.firstToken; i < sentence.endToken; i++) {
-        const t = tokens[i];
-        if (t.cue) blocked = false;
-        else if (pseudo.has(i) || endsScope(t)) blocked = true;
-        else if (winkNegated[i] && !blocked) t.negated = true;
-      }
+      reachAfterCues(tokens, sentence, pseudo, (t, i) => {
+        if (winkNegated[i]) t.negated = true;
+      });
     }
   }
   return cues.sort((x, y) => x.start - y.start);
 }
 
-/** Is there a token after a cue, with nothing blocking between, that no NegEx scope covers? */
-function scopeLeftOpen(tokens: Token[], sentence: Sentence, pseudo: Set<number>): boolean {
+/**
+ * Visits the tokens of a sentence that wink-nlp's flags may negate: those after a cue with no
+ * termination term, punctuation or pseudo-negation between. Stops, returning true, as soon as
+ * `visit` returns true.
+ */
+function reachAfterCues(tokens: Token[], sentence: Sentence, pseudo: Set<number>, visit: (t: Token, i: number) => boolean | void): boolean {
   let blocked = true;
   for (let i = sentence.firstToken; i < sentence.endToken; i++) {
     const t = tokens[i];
     if (t.cue) blocked = false;
     else if (pseudo.has(i) || endsScope(t)) blocked = true;
-    else if (!blocked && !t.negated) return true;
+    else if (!blocked && visit(t, i)) return true;
   }
   return false;
 }

@@ -40,6 +40,11 @@ function isBreak(c: number): boolean {
   return c === 10 || c === 13 || c === 9;
 }
 
+/** The characters JavaScript's `\s` matches: gaps and breaks. */
+export function isSpaceCode(c: number): boolean {
+  return isGap(c) || isBreak(c);
+}
+
 /** The code point at `i` as a string (both halves of a surrogate pair). */
 function charAt(text: string, i: number): string {
   const c = text.charCodeAt(i);

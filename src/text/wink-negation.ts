@@ -1,3 +1,4 @@
+import { isSpaceCode } from './tokenize.ts';
 import { winkReader } from './wink-reader.ts';
 
 interface Span {
@@ -38,57 +39,50 @@ const SEPARATOR = '\n\n';
 export function winkNegationFlags(text: string, tokens: TokenLike[], sentences: SentenceLike[]): boolean[] {
   const flags = new Array<boolean>(tokens.length).fill(false);
   const chosen = sentences.filter((sentence) => hasTrigger(tokens, sentence));
-  if (chosen.length === 0) return flags;
-  if (chosen.length === 1 || !readTogether(text, tokens, chosen, flags)) for (const sentence of chosen) readApart(text, tokens, [sentence], flags);
+  if (chosen.length > 1 && readTogether(text, tokens, chosen, flags)) return flags;
+  for (const sentence of chosen) readTogether(text, tokens, [sentence], flags);
   return flags;
 }
 
-/** Reads the sentences in one wink-nlp document; false (nothing set) if it joins any of them. */
+/**
+ * Reads the sentences in one wink-nlp document and sets the flags of our tokens under each
+ * negated wink-nlp token; returns false, setting nothing, if wink-nlp joins any of them.
+ */
 function readTogether(text: string, tokens: TokenLike[], chosen: SentenceLike[], flags: boolean[]): boolean {
   const pieces = chosen.map((s) => shieldLongRuns(text.slice(s.start, s.end)));
+  const read = pieces.length === 1 ? pieces[0].read : pieces.map((p) => p.read).join(SEPARATOR);
   const nlp = winkReader();
-  const wdoc = nlp.readDoc(pieces.map((p) => p.read).join(SEPARATOR));
+  const wdoc = nlp.readDoc(read);
   if (wdoc.sentences().length() < chosen.length) return false;
-  carryOver(wdoc, pieces, chosen, tokens, flags);
-  return true;
-}
-
-function readApart(text: string, tokens: TokenLike[], chosen: SentenceLike[], flags: boolean[]): void {
-  const pieces = chosen.map((s) => shieldLongRuns(text.slice(s.start, s.end)));
-  carryOver(winkReader().readDoc(pieces[0].read), pieces, chosen, tokens, flags);
-}
-
-type WinkDoc = ReturnType<ReturnType<typeof winkReader>['readDoc']>;
-
-/** Sets the flags of our tokens under each negated wink-nlp token, piece by piece. */
-function carryOver(wdoc: WinkDoc, pieces: { read: string; runs: Run[] }[], chosen: SentenceLike[], tokens: TokenLike[], flags: boolean[]): void {
-  const its = winkReader().its;
-  const values = wdoc.tokens().out(its.value) as string[];
-  const spaces = wdoc.tokens().out(its.precedingSpaces) as string[];
-  const negated = wdoc.tokens().out(its.negationFlag) as unknown as boolean[];
+  const values = wdoc.tokens().out(nlp.its.value) as string[];
+  const spaces = wdoc.tokens().out(nlp.its.precedingSpaces) as string[];
+  const negated = wdoc.tokens().out(nlp.its.negationFlag) as unknown as boolean[];
   let piece = 0;
   let pieceAt = 0; // where the current piece starts in the read text
   let offset = 0;
   let mine = chosen[0].firstToken;
-  const read = pieces.length === 1 ? pieces[0].read : pieces.map((p) => p.read).join(SEPARATOR);
   for (let w = 0; w < values.length; w++) {
     offset += spaces[w].length;
-    const found = read.startsWith(values[w], offset) ? offset : read.indexOf(values[w], offset);
-    if (found >= 0) offset = found;
+    if (!read.startsWith(values[w], offset)) {
+      // wink-nlp keeps values verbatim; should one ever differ, resynchronise on the text
+      const found = read.indexOf(values[w], offset);
+      if (found >= 0) offset = found;
+    }
     while (piece + 1 < pieces.length && offset >= pieceAt + pieces[piece].read.length + SEPARATOR.length) {
       pieceAt += pieces[piece].read.length + SEPARATOR.length;
       piece++;
       mine = chosen[piece].firstToken;
     }
-    const valueEnd = offset + values[w].length;
-    offset = valueEnd;
-    if (!negated[w] || valueEnd - pieceAt > pieces[piece].read.length) continue;
+    const valueStart = offset;
+    offset += values[w].length;
+    if (!negated[w] || offset - pieceAt > pieces[piece].read.length) continue;
     const sentence = chosen[piece];
-    const start = sentence.start + original(pieces[piece].runs, found >= 0 ? found - pieceAt : valueEnd - values[w].length - pieceAt);
-    const end = sentence.start + original(pieces[piece].runs, valueEnd - pieceAt);
+    const start = sentence.start + original(pieces[piece].runs, valueStart - pieceAt);
+    const end = sentence.start + original(pieces[piece].runs, offset - pieceAt);
     while (mine < sentence.endToken && tokens[mine].end <= start) mine++;
     for (let k = mine; k < sentence.endToken && tokens[k].start < end; k++) flags[k] = true;
   }
+  return true;
 }
 
 function hasTrigger(tokens: TokenLike[], sentence: SentenceLike): boolean {
@@ -142,10 +136,4 @@ function shieldLongRuns(text: string): { read: string; runs: Run[] } {
     runFrom = i + 1;
   }
   return runs.length ? { read: read + text.slice(last), runs } : { read: text, runs };
-}
-
-/** The characters JavaScript's `\s` matches. */
-export function isSpaceCode(c: number): boolean {
-  if (c < 128) return c === 32 || (c >= 9 && c <= 13);
-  return c === 0xa0 || c === 0x1680 || (c >= 0x2000 && c <= 0x200a) || c === 0x2028 || c === 0x2029 || c === 0x202f || c === 0x205f || c === 0x3000 || c === 0xfeff;
 }
