@@ -37,10 +37,9 @@ interface SentenceFacts {
 /** Shared by every sentence with no antonym: most sentences. */
 const NO_WORDS: Set<string> = new Set();
 
-/** Reads each sentence's facts, giving the document's content stems small ids. */
-function allFacts(doc: Doc, quantities: Map<number, Quantity[]>): { all: SentenceFacts[]; stemCount: number } {
-  const ids = new Map<string, number>();
-  const seenIn = new Int32Array(doc.wordTokens.length + 1); // by stem id: 1 + the sentence that last used it
+/** Reads each sentence's facts; content stems go by the document's stem ids (`Token.stemId`). */
+function allFacts(doc: Doc, quantities: Map<number, Quantity[]>): SentenceFacts[] {
+  const seenIn = new Int32Array(doc.stemKinds); // by stem id: 1 + the sentence that last used it
   const all = doc.sentences.map((s) => {
     const stems: number[] = [];
     const negatedStems: number[] = [];
@@ -56,8 +55,7 @@ function allFacts(doc: Doc, quantities: Map<number, Quantity[]>): { all: Sentenc
         continue;
       }
       if (t.stop || t.cue || t.lower.length < 2) continue;
-      let id = ids.get(t.stem);
-      if (id === undefined) ids.set(t.stem, (id = ids.size));
+      const id = t.stemId;
       if (seenIn[id] !== s.index + 1) {
         seenIn[id] = s.index + 1;
         stems.push(id);
@@ -66,7 +64,7 @@ function allFacts(doc: Doc, quantities: Map<number, Quantity[]>): { all: Sentenc
     }
     return { sentence: s, stems, negatedStems, antonymWords, conditional, quantities: quantities.get(s.index) ?? [] };
   });
-  return { all, stemCount: ids.size };
+  return all;
 }
 
 function antonymSwap(a: SentenceFacts, b: SentenceFacts): string | null {
@@ -132,7 +130,8 @@ export const contradiction = defineCheck<{ minShared: number }>({
       if (list) list.push(q);
       else bySentence.set(q.sentence, [q]);
     }
-    const { all, stemCount } = allFacts(doc, bySentence);
+    const all = allFacts(doc, bySentence);
+    const stemCount = doc.stemKinds;
     const postings: number[][] = new Array(stemCount); // by stem id: the sentences holding it
     const inA = new Int32Array(stemCount);
     let stamp = 0;

@@ -100,22 +100,28 @@ export function defineCheck<P>(definition: CheckDefinition<P>): Check<P> {
         findings.push(finding);
       };
       const evaluation = definition.evaluate(doc, resolved, report);
-      const metrics: Record<string, MetricValue> = {};
-      const undefinedMetrics: Record<string, string> = { ...(evaluation.undefinedMetrics ?? {}) };
-      for (const [key, value] of Object.entries(evaluation.metrics)) {
-        if (typeof value === 'number' && !Number.isFinite(value)) {
-          metrics[key] = null;
-          undefinedMetrics[key] ??= 'not defined for this text';
-        } else metrics[key] = value;
+      // the evaluation's own objects are returned unless a metric must become null
+      let metrics = evaluation.metrics;
+      let undefinedMetrics = evaluation.undefinedMetrics ?? {};
+      for (const key in evaluation.metrics) {
+        const value = evaluation.metrics[key];
+        if (typeof value !== 'number' || Number.isFinite(value)) continue;
+        if (metrics === evaluation.metrics) {
+          metrics = { ...evaluation.metrics };
+          undefinedMetrics = { ...undefinedMetrics };
+        }
+        metrics[key] = null;
+        undefinedMetrics[key] ??= 'not defined for this text';
       }
       const value = Number.isFinite(evaluation.value) ? Math.min(1, Math.max(0, evaluation.value)) : 1;
-      findings.sort((a, b) => a.start - b.start || a.end - b.end);
+      if (findings.length > 1) findings.sort((a, b) => a.start - b.start || a.end - b.end);
       return { metrics, undefinedMetrics, value, findings };
     },
   };
 }
 
 function fill(template: string, data: Record<string, string | number> | undefined): string {
+  if (!template.includes('{')) return template;
   return template.replace(/\{(\w+)\}/g, (whole, name: string) => {
     const value = data?.[name];
     if (value === undefined) throw new Error(`message template "${template}" needs "${name}"`);

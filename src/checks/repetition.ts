@@ -28,16 +28,11 @@ function scratchOf(size: number): Int32Array {
  * starting at word i, equal n-grams get equal ids, and `distinct[n]` counts them. Each level is
  * built from the one before (id of the (n−1)-gram, next word), so keys stay small integers.
  */
-function ngramIds(ws: Token[], maxN: number): { levels: Int32Array[]; distinct: number[] } {
-  const wordIds = new Map<string, number>();
+function ngramIds(ws: Token[], wordKinds: number, maxN: number): { levels: Int32Array[]; distinct: number[] } {
   const first = new Int32Array(ws.length);
-  for (let i = 0; i < ws.length; i++) {
-    let id = wordIds.get(ws[i].lower);
-    if (id === undefined) wordIds.set(ws[i].lower, (id = wordIds.size));
-    first[i] = id;
-  }
+  for (let i = 0; i < ws.length; i++) first[i] = ws[i].wordId;
   const levels = [new Int32Array(0), first];
-  const distinct = [0, wordIds.size];
+  const distinct = [0, wordKinds];
   for (let n = 2; n <= maxN; n++) {
     const previous = levels[n - 1];
     const count = Math.max(0, ws.length - n + 1);
@@ -225,7 +220,7 @@ export const repetition = defineCheck<Params>({
   },
   evaluate(doc, params, report) {
     const ws = doc.wordTokens;
-    const { levels, distinct } = ngramIds(ws, Math.max(4, params.n));
+    const { levels, distinct } = ngramIds(ws, doc.wordKinds, Math.max(4, params.n));
     const share = (n: number) => (levels[n].length ? 1 - distinct[n] / levels[n].length : null);
     const undefinedMetrics: Record<string, string> = {};
     const seqRep = share(params.n);

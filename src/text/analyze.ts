@@ -2,7 +2,7 @@ import { syllablesOf } from './syllables.ts';
 import { splitSentences } from './sentences.ts';
 import { isSpaceCode, tokenize } from './tokenize.ts';
 import { winkNegationFlags } from './wink-negation.ts';
-import { wordFacts, type WordFacts } from './word-facts.ts';
+import { numberSlot, trimWordFacts, wordFacts, type WordFacts } from './word-facts.ts';
 import { findNegation, type NegationCue } from './negation.ts';
 import { findQuantities, type Quantity } from './quantities.ts';
 
@@ -25,6 +25,10 @@ export interface Token {
   stop: boolean;
   /** Porter stem of `lower` for words, '' otherwise. */
   stem: string;
+  /** For words and numbers (clitics aside): equal within a document exactly when `lower` is equal, numbered from 0 (`Doc.wordKinds`); −1 otherwise. */
+  wordId: number;
+  /** Likewise for `stem` (for a number: the number itself; `Doc.stemKinds`); −1 where `wordId` is. */
+  stemId: number;
   /** Syllables of the surface word (with its clitic, so "don't" is one word of 1 syllable); 0 for non-words. */
   syllables: number;
   /** Facts about the surface word (familiarity, letters …); null for tokens that are not words. */
@@ -67,6 +71,9 @@ export interface Doc {
   tokens: Token[];
   /** The tokens that count as words (`isWord`), in order. */
   wordTokens: Token[];
+  /** How many distinct `Token.wordId`s and `Token.stemId`s the document has. */
+  wordKinds: number;
+  stemKinds: number;
   sentences: Sentence[];
   /** Words for phrase matching (see `MatchWord`). */
   words: MatchWord[];
@@ -79,6 +86,16 @@ export interface Doc {
 export function isWord(token: Token): boolean {
   return (token.kind === 'word' || token.kind === 'number') && !token.clitic;
 }
+
+/** `numberSlot` for strings without a slot: their numbers kept in a map of the document's own. */
+function numberKey(numbers: Map<string, number>, key: string, counter: { next: number }): number {
+  let id = numbers.get(key);
+  if (id === undefined) numbers.set(key, (id = counter.next++));
+  return id;
+}
+
+/** Numbers the documents analysed, for `numberSlot`. */
+let documentSerial = 0;
 
 /**
  * Reads a text once into a `Doc`: tokens with offsets, sentences, negation cues and scope,
@@ -93,12 +110,21 @@ export function isWord(token: Token): boolean {
 export function analyze(text: string, context: AnalysisContext = {}): Doc {
   const tokens = tokenize(text);
   const wordTokens: Token[] = [];
+  trimWordFacts();
+  const serial = ++documentSerial;
+  const words = { next: 0 };
+  const stems = { next: 0 };
+  // forms over 64 characters get no facts (nor slots): numbered through maps of their own
+  let longWords: Map<string, number> | undefined;
   for (let i = 0; i < tokens.length; i++) {
     const t = tokens[i];
     if (t.clitic) continue;
     if (t.kind === 'number') {
+      const facts = wordFacts(t.lower);
       t.syllables = 1;
-      t.facts = wordFacts(t.lower);
+      t.facts = facts;
+      t.wordId = numberSlot(facts.wordSlot, serial, words);
+      t.stemId = numberSlot(facts.stemSlot, serial, stems);
       wordTokens.push(t);
     } else if (t.kind === 'word') {
       const next = tokens[i + 1];
@@ -106,12 +132,17 @@ export function analyze(text: string, context: AnalysisContext = {}): Doc {
       if (surface.length > 64) {
         t.stem = surface;
         t.syllables = syllablesOf(surface);
+        longWords ??= new Map();
+        t.wordId = numberKey(longWords, `w${t.lower}`, words);
+        t.stemId = numberKey(longWords, `s${surface}`, stems);
       } else {
         const facts = wordFacts(surface, t.lower);
         t.facts = facts;
         t.stem = facts.stem;
         t.syllables = facts.syllables;
         t.stop = facts.stop;
+        t.wordId = numberSlot(facts.wordSlot, serial, words);
+        t.stemId = numberSlot(facts.stemSlot, serial, stems);
       }
       wordTokens.push(t);
     }
@@ -137,9 +168,9 @@ export function analyze(text: string, context: AnalysisContext = {}): Doc {
     sentences.push({ index, start: tokens[first].start, end: tokens[last].end, firstToken: first, endToken: last + 1, words });
   }
 
-  const words = matchWords(text, tokens);
-  const cues = findNegation(tokens, words, sentences, (open) => winkNegationFlags(text, tokens, open));
-  const doc: Doc = { text, tokens, wordTokens, sentences, words, cues, quantities: [], context };
+  const matches = matchWords(text, tokens);
+  const cues = findNegation(tokens, matches, sentences, (open) => winkNegationFlags(text, tokens, open));
+  const doc: Doc = { text, tokens, wordTokens, wordKinds: words.next, stemKinds: stems.next, sentences, words: matches, cues, quantities: [], context };
   doc.quantities = findQuantities(doc);
   return doc;
 }
@@ -162,6 +193,10 @@ function edgeEnd(c: number): boolean {
   return !asciiAlphanumeric(c) && (EDGE_END_CODES.has(c) || isSpaceCode(c));
 }
 
+class MatchWordRecord implements MatchWord {
+  constructor(public norm: string, public start: number, public end: number, public firstToken: number, public lastToken: number, public sentence: number) {}
+}
+
 /** Groups tokens not separated by white space into words and normalises each (see `MatchWord`). */
 function matchWords(text: string, tokens: Token[]): MatchWord[] {
   const words: MatchWord[] = [];
@@ -179,7 +214,7 @@ function matchWords(text: string, tokens: Token[]): MatchWord[] {
     if (start >= end) return;
     const lower = first === last && start === from && end === to ? tokens[first].lower : text.slice(start, end).toLowerCase();
     const norm = lower.includes('’') ? lower.replace(/’/g, "'") : lower;
-    words.push({ norm, start, end, firstToken: first, lastToken: last, sentence: tokens[first].sentence });
+    words.push(new MatchWordRecord(norm, start, end, first, last, tokens[first].sentence));
   };
   for (let i = 0; i < tokens.length; i++) {
     const t = tokens[i];

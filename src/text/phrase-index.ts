@@ -49,20 +49,19 @@ function matchAt(words: readonly MatchWord[], i: number, entry: Entry): number {
  */
 class PhraseBank {
   private readonly byFirst = new Map<string, Entry[]>();
-  /** Single-word prefix phrases by their first two characters' codes (see `headKey`). */
-  private readonly prefixFirst = new Map<number, Entry[]>();
-  /** 1 for each first character some prefix phrase starts with: most words need no lookup. */
-  private readonly prefixInitials = new Uint8Array(65536);
+  /**
+   * Single-word prefix phrases by the low bytes of their first two characters (see `headSlot`):
+   * one array read per word, no map. Characters beyond Latin-1 may share a slot, so a candidate
+   * is still checked with `startsWith`.
+   */
+  private readonly prefixByHead: (Entry[] | undefined)[] = new Array(65536).fill(undefined);
   lists = 0;
 
   add(entries: Entry[]): void {
     for (const entry of entries) {
       if (entry.prefixLast && entry.words.length === 1) {
-        const key = headKey(entry.words[0]);
-        this.prefixInitials[entry.words[0].charCodeAt(0)] = 1;
-        const list = this.prefixFirst.get(key);
-        if (list) list.push(entry);
-        else this.prefixFirst.set(key, [entry]);
+        const slot = headSlot(entry.words[0]);
+        (this.prefixByHead[slot] ??= []).push(entry);
         continue;
       }
       const list = this.byFirst.get(entry.words[0]);
@@ -88,7 +87,7 @@ class PhraseBank {
       const w = words[i];
       const entries = this.byFirst.get(w.norm);
       if (entries) for (const entry of entries) if (i >= nextFree[entry.list]) consider(i, entry, matchAt(words, i, entry));
-      const prefixes = this.prefixInitials[w.norm.charCodeAt(0)] === 1 ? this.prefixFirst.get(headKey(w.norm)) : undefined;
+      const prefixes = this.prefixByHead[headSlot(w.norm)];
       if (prefixes) for (const entry of prefixes) if (w.norm.startsWith(entry.words[0])) consider(i, entry, i);
       if (!touched.length) continue;
       for (const list of touched) {
@@ -102,9 +101,9 @@ class PhraseBank {
   }
 }
 
-/** The first two characters of a word as one number (a word of one character: that character). */
-function headKey(word: string): number {
-  return word.length > 1 ? word.charCodeAt(0) * 65536 + word.charCodeAt(1) : word.charCodeAt(0);
+/** The low bytes of a word's first two characters as one 16-bit number (a word of one character: its low byte). */
+function headSlot(word: string): number {
+  return word.length > 1 ? ((word.charCodeAt(0) & 0xff) << 8) | (word.charCodeAt(1) & 0xff) : word.charCodeAt(0) & 0xff;
 }
 
 /** Lists a bank takes; lists beyond it (rubrics can make many) get a bank of their own. */

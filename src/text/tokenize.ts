@@ -81,6 +81,21 @@ function isApostrophe(c: number): boolean {
  * @example
  * tokenize("Don't.").map((t) => t.kind) // ['word', 'word', 'punctuation'] ("Do", "n't", ".")
  */
+class TokenRecord implements Token {
+  sentence = 0;
+  negated = false;
+  cue = false;
+  stem = '';
+  wordId = -1;
+  stemId = -1;
+  syllables = 0;
+  facts: Token['facts'] = null;
+  stop: boolean;
+  constructor(public start: number, public end: number, public text: string, public lower: string, public kind: TokenKind, public clitic: boolean) {
+    this.stop = clitic;
+  }
+}
+
 export function tokenize(text: string): Token[] {
   const out: Token[] = [];
   const n = text.length;
@@ -90,7 +105,7 @@ export function tokenize(text: string): Token[] {
     const value = text.slice(start, end);
     // the analysis fills in sentence, negation, stem, syllables and facts
     const lower = kind === 'word' || kind === 'other' || kind === 'url' || kind === 'email' ? value.toLowerCase() : value;
-    out.push({ start, end, text: value, lower, kind, sentence: 0, negated: false, cue: false, clitic, stop: clitic, stem: '', syllables: 0, facts: null });
+    out.push(new TokenRecord(start, end, value, lower, kind, clitic));
   };
   while (i < n) {
     const c = text.charCodeAt(i);

@@ -3,9 +3,22 @@ import { stemOf } from './stem.ts';
 import { syllablesOf } from './syllables.ts';
 import { STOP_WORDS } from './word-lists.ts';
 
+/**
+ * A string that recurs across documents (a word form, a stem), numbered anew in each document
+ * without hashing: `doc` is the serial of the document that last numbered it, `id` its number
+ * there (see `numberSlot`).
+ */
+export interface Slot {
+  doc: number;
+  id: number;
+}
+
 /** Everything the analysis needs to know about a word form, worked out once per distinct form. */
 export interface WordFacts {
+  /** The slot of the lower-case word without its clitic ("do" of "don't"). */
+  wordSlot: Slot;
   stem: string;
+  stemSlot: Slot;
   syllables: number;
   stop: boolean;
   /** On the Dale–Chall familiar list, directly or as a regular inflection. */
@@ -60,26 +73,57 @@ function countLetters(word: string): { letters: number; characters: number } {
 }
 
 const cache = new Map<string, WordFacts>();
+const slots = new Map<string, Slot>();
 const CACHE_LIMIT = 200_000;
+
+function slotOf(text: string): Slot {
+  let slot = slots.get(text);
+  if (!slot) slots.set(text, (slot = { doc: 0, id: 0 }));
+  return slot;
+}
+
+/**
+ * Empties the memo once it holds CACHE_LIMIT forms. Called between documents only, so every
+ * token of one document sees the same slots.
+ */
+export function trimWordFacts(): void {
+  if (cache.size < CACHE_LIMIT) return;
+  cache.clear();
+  slots.clear();
+}
+
+/**
+ * The number of `slot` in document `doc`: its number from earlier in the same document, or the
+ * next one (`counter.next`) if the document has not met it yet.
+ */
+export function numberSlot(slot: Slot, doc: number, counter: { next: number }): number {
+  if (slot.doc !== doc) {
+    slot.doc = doc;
+    slot.id = counter.next++;
+  }
+  return slot.id;
+}
 
 /**
  * Facts about a lowercase word form (with its clitic, as "don't"), memoised: the same forms
- * recur across responses, so each is worked out once.
+ * recur across responses, so each is worked out once (`trimWordFacts` bounds the memo).
  */
 export function wordFacts(surfaceLower: string, stemBase = surfaceLower): WordFacts {
   const key = stemBase === surfaceLower ? surfaceLower : `${surfaceLower}\u0000${stemBase}`;
   let facts = cache.get(key);
   if (facts) return facts;
   const syllables = syllablesOf(surfaceLower);
+  const stem = stemOf(stemBase);
   facts = {
-    stem: stemOf(stemBase),
+    wordSlot: slotOf(stemBase),
+    stem,
+    stemSlot: slotOf(`\u0001${stem}`),
     syllables,
     stop: STOP_WORDS.has(stemBase),
     familiar: isFamiliar(surfaceLower.replace(/’/g, "'")),
     ...countLetters(surfaceLower),
     complexByInflectionOnly: complexByInflectionOnly(stemBase, syllables),
   };
-  if (cache.size >= CACHE_LIMIT) cache.clear();
   cache.set(key, facts);
   return facts;
 }
