@@ -49,7 +49,9 @@ export function createApp(options: AppOptions) {
   });
   app.get('/healthz', (c) => c.json({ ok: true }));
   app.route('/', staticRoutes());
-  app.use(bodyLimit({ maxSize: options.maxBodyBytes ?? 50 * 1024 * 1024, onError: () => { throw new HttpError(413, 'The upload is larger than this server accepts. Split the file into smaller batches.'); } }));
+  const limitBody = bodyLimit({ maxSize: options.maxBodyBytes ?? 50 * 1024 * 1024, onError: () => { throw new HttpError(413, 'The upload is larger than this server accepts. Split the file into smaller batches.'); } });
+  // GET and HEAD carry no body; asking for one makes the Node adapter build a whole Request per page view
+  app.use((c, next) => (c.req.method === 'GET' || c.req.method === 'HEAD' ? next() : limitBody(c, next)));
   app.use(sessionLoader());
   app.use(csrfProtection({ exempt: (path) => path.startsWith('/api/') }));
   app.route('/', authRoutes());

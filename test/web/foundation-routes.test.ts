@@ -23,6 +23,23 @@ describe('sign-in, home queue and headers', () => {
     expect(html).not.toMatch(/style="/);
   });
 
+  // Set before the route runs (see security-headers.ts); every kind of response must still carry them.
+  it.each([
+    { kind: 'a page', path: '/login', signedIn: false, status: 200, cache: 'no-store' },
+    { kind: 'a redirect', path: '/', signedIn: false, status: 303, cache: 'no-store' },
+    { kind: 'a static file with its own caching', path: '/static/plumbline.css', signedIn: false, status: 200, cache: 'public, max-age=3600' },
+    { kind: 'a page that does not exist', path: '/no-such-page', signedIn: true, status: 404, cache: 'no-store' },
+    { kind: 'an error thrown by a route', path: '/?band=nonsense', signedIn: true, status: 400, cache: 'no-store' },
+    { kind: 'the queue page', path: '/', signedIn: true, status: 200, cache: 'no-store' },
+  ])('sends the security headers with $kind', async ({ path, signedIn, status, cache }) => {
+    const headers = signedIn ? { cookie: (await signIn(fixture.app, 'reviewer')).cookie } : undefined;
+    const res = await fixture.app.request(path, { headers });
+    expect(res.status).toBe(status);
+    expect(res.headers.get('content-security-policy')).toBe(CONTENT_SECURITY_POLICY);
+    expect(res.headers.get('x-frame-options')).toBe('DENY');
+    expect(res.headers.get('cache-control')).toBe(cache);
+  });
+
   it('shows the demo queue, flagged items first, after signing in', async () => {
     const { cookie } = await signIn(fixture.app, 'reviewer');
     const res = await fixture.app.request('/', { headers: { cookie } });
