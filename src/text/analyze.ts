@@ -237,18 +237,20 @@ export function analyzeItem(prompt: string, responses: string[]): { prompt: Doc;
   return { prompt: promptDoc, responses: docs };
 }
 
-const wholeStems = new WeakMap<Doc, string[]>();
+/** The whole document's content stems, kept on the document (not in a weak map: see phrase-index.ts). */
+const WHOLE_STEMS = Symbol('content stems');
 
 /** Content stems of a token range: words that are not stop words, negation cues or clitics. */
 export function contentStems(doc: Doc, from = 0, to = doc.tokens.length): string[] {
   const whole = from === 0 && to === doc.tokens.length;
-  const cached = whole ? wholeStems.get(doc) : undefined;
+  const holder = doc as Doc & { [WHOLE_STEMS]?: string[] };
+  const cached = whole ? holder[WHOLE_STEMS] : undefined;
   if (cached) return cached;
   const out: string[] = [];
   for (let i = from; i < to; i++) {
     const t = doc.tokens[i];
     if (t.kind === 'word' && !t.stop && !t.cue && !t.clitic && t.lower.length > 1) out.push(t.stem);
   }
-  if (whole) wholeStems.set(doc, out);
+  if (whole) holder[WHOLE_STEMS] = out;
   return out;
 }

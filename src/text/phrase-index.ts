@@ -110,16 +110,29 @@ function headSlot(word: string): number {
 const SHARED_LISTS = 256;
 
 const shared = new PhraseBank();
-const scans = new WeakMap<readonly MatchWord[], { lists: number; matches: Matches[] }>();
+
+/**
+ * What has been matched in one document's words, kept on the words array itself (under a
+ * symbol) so that it goes when the document goes: weak maps keyed by document would cost every
+ * garbage collection a look at each entry.
+ */
+interface WordsMemo {
+  scan?: { lists: number; matches: Matches[] };
+  own?: Map<PhraseIndex, Matches>;
+  spans?: Map<PhraseIndex, { start: number; end: number }[]>;
+}
+const MEMO = Symbol('phrase matches');
+
+function memoOf(words: readonly MatchWord[]): WordsMemo {
+  const holder = words as readonly MatchWord[] & { [MEMO]?: WordsMemo };
+  return (holder[MEMO] ??= {});
+}
 
 /** Every shared list's matches in `words`, scanned once; rescanned if lists were added since. */
 function sharedMatches(words: readonly MatchWord[]): Matches[] {
-  let scan = scans.get(words);
-  if (!scan || scan.lists !== shared.lists) {
-    scan = { lists: shared.lists, matches: shared.scan(words) };
-    scans.set(words, scan);
-  }
-  return scan.matches;
+  const memo = memoOf(words);
+  if (!memo.scan || memo.scan.lists !== shared.lists) memo.scan = { lists: shared.lists, matches: shared.scan(words) };
+  return memo.scan.matches;
 }
 
 /**
@@ -131,8 +144,6 @@ function sharedMatches(words: readonly MatchWord[]): Matches[] {
 export class PhraseIndex {
   private readonly bank: PhraseBank;
   private readonly list: number;
-  private readonly own = new WeakMap<readonly MatchWord[], Matches>();
-  private readonly spans = new WeakMap<readonly MatchWord[], { start: number; end: number }[]>();
   readonly size: number;
 
   constructor(phrases: readonly string[]) {
@@ -147,20 +158,22 @@ export class PhraseIndex {
   /** Every match in `words`, longest first at each start, not overlapping, never across a sentence: [first word, last word] pairs. */
   matchWords(words: readonly MatchWord[]): Matches {
     if (this.bank === shared) return sharedMatches(words)[this.list];
-    let matches = this.own.get(words);
+    const own = (memoOf(words).own ??= new Map());
+    let matches = own.get(this);
     if (!matches) {
       matches = this.bank.scan(words)[0];
-      this.own.set(words, matches);
+      own.set(this, matches);
     }
     return matches;
   }
 
   /** Matches in a document as character spans of the original text. */
   find(doc: Doc): { start: number; end: number }[] {
-    let spans = this.spans.get(doc.words);
+    const all = (memoOf(doc.words).spans ??= new Map());
+    let spans = all.get(this);
     if (!spans) {
       spans = this.matchWords(doc.words).map(([a, b]) => ({ start: doc.words[a].start, end: doc.words[b].end }));
-      this.spans.set(doc.words, spans);
+      all.set(this, spans);
     }
     return spans;
   }
