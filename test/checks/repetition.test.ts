@@ -1,4 +1,7 @@
-import { repetition } from '../../src/checks/repetition.ts';
+import { deflateRawSync } from 'node:zlib';
+import { describe, expect, it } from 'vitest';
+import { compressedSize, repetition } from '../../src/checks/repetition.ts';
+import { syntheticCorpus } from '../bench/corpus.ts';
 import { checkTable } from './check-table.ts';
 
 // Texts written for this project. Limits: seq-rep-4 (Welleck et al. 2019); most-frequent n-gram share
@@ -50,4 +53,24 @@ checkTable(repetition, {
     'Go slowly above 3,000 metres and rest every third or fourth day.',
     'Check the code for spaces, then check that the card has not expired.',
   ],
+});
+
+// The compression ratio is defined on zlib's default deflate (level 6, 32 KB window, memory
+// level 8): the smaller window used for short texts must give exactly the same output size.
+describe('compressed size', () => {
+  const cases = [
+    'Stay on the trail. '.repeat(40),
+    'Close the zips, wash on a gentle cycle with a technical cleaner, rinse twice, then tumble dry on low.',
+    Array.from({ length: 300 }, (_, i) => `step ${i * 7919 % 1000} of the climb`).join(', '),
+    'café 😀 水を沸騰させる。 '.repeat(30),
+    'x'.repeat(40_000),
+  ];
+  it.each(cases.map((text) => ({ text, label: `${text.slice(0, 30)}… (${text.length} characters)` })))('$label', ({ text }) => {
+    expect(compressedSize(text, Buffer.byteLength(text))).toBe(deflateRawSync(text).length);
+  });
+  it('for 300 generated responses of 0.3–9 KB', () => {
+    const texts = [...syntheticCorpus(200, 1200), ...syntheticCorpus(100, 6000, 3)];
+    const differing = texts.filter((t) => compressedSize(t, Buffer.byteLength(t)) !== deflateRawSync(t).length);
+    expect(differing).toEqual([]);
+  });
 });
