@@ -47,10 +47,13 @@ export const exportCommand: Command = {
       for await (const item of decidedItems(store.db, options)) {
         tally.addItem(item);
         if (format === 'pairs') {
+          // one write per item: fewer, larger chunks keep the stream's bookkeeping (and the heap) small
+          let lines = '';
           for (const pair of pairsOf(item, options.includeTies ?? false)) {
             tally.addPair(pair);
-            await write(as === 'jsonl' ? `${JSON.stringify(pair)}\n` : `${PAIR_COLUMNS.map((c) => csvField(pair[c as keyof typeof pair])).join(',')}\n`);
+            lines += as === 'jsonl' ? `${JSON.stringify(pair)}\n` : `${PAIR_COLUMNS.map((c) => csvField(pair[c as keyof typeof pair])).join(',')}\n`;
           }
+          if (lines) await write(lines);
         } else {
           const record = rankingOf(item);
           if (as === 'jsonl') await write(`${JSON.stringify(record)}\n`);
