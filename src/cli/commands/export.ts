@@ -47,7 +47,7 @@ export const exportCommand: Command = {
       for await (const item of decidedItems(store.db, options)) {
         tally.addItem(item);
         if (format === 'pairs') {
-          // one write per item: fewer, larger chunks keep the stream's bookkeeping (and the heap) small
+          // one write per item, not per pair: fewer, larger chunks mean less stream bookkeeping per byte
           let lines = '';
           for (const pair of pairsOf(item, options.includeTies ?? false)) {
             tally.addPair(pair);
