@@ -131,9 +131,8 @@ export const contradiction = defineCheck<{ minShared: number }>({
       else bySentence.set(q.sentence, [q]);
     }
     const all = allFacts(doc, bySentence);
-    const stemCount = doc.stemKinds;
-    const postings: number[][] = new Array(stemCount); // by stem id: the sentences holding it
-    const inA = new Int32Array(stemCount);
+    const postings: number[][] = new Array(doc.stemKinds); // by stem id: the sentences holding it
+    const inA = new Int32Array(doc.stemKinds);
     let stamp = 0;
     const sharedCount = new Int32Array(all.length);
     const touched: number[] = [];

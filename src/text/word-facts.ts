@@ -73,10 +73,11 @@ function countLetters(word: string): { letters: number; characters: number } {
 }
 
 const cache = new Map<string, WordFacts>();
-const slots = new Map<string, Slot>();
+const wordSlots = new Map<string, Slot>();
+const stemSlots = new Map<string, Slot>();
 const CACHE_LIMIT = 200_000;
 
-function slotOf(text: string): Slot {
+function slotOf(slots: Map<string, Slot>, text: string): Slot {
   let slot = slots.get(text);
   if (!slot) slots.set(text, (slot = { doc: 0, id: 0 }));
   return slot;
@@ -89,7 +90,8 @@ function slotOf(text: string): Slot {
 export function trimWordFacts(): void {
   if (cache.size < CACHE_LIMIT) return;
   cache.clear();
-  slots.clear();
+  wordSlots.clear();
+  stemSlots.clear();
 }
 
 /**
@@ -115,9 +117,9 @@ export function wordFacts(surfaceLower: string, stemBase = surfaceLower): WordFa
   const syllables = syllablesOf(surfaceLower);
   const stem = stemOf(stemBase);
   facts = {
-    wordSlot: slotOf(stemBase),
+    wordSlot: slotOf(wordSlots, stemBase),
     stem,
-    stemSlot: slotOf(`\u0001${stem}`),
+    stemSlot: slotOf(stemSlots, stem),
     syllables,
     stop: STOP_WORDS.has(stemBase),
     familiar: isFamiliar(surfaceLower.replace(/’/g, "'")),
